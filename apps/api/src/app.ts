@@ -1,0 +1,41 @@
+import express from 'express';
+import helmet from 'helmet';
+import { buildOpenApiDocument, endpoint, errorHandler, notFoundHandler, requestLogger, routerFor, type EndpointDef } from '@latchwork/shared-server-kit';
+import type { ApiDeps } from './deps';
+import { healthEndpoints } from './health/health.endpoints';
+import { docsRouter } from './docs/docs.router';
+
+export const API_PREFIX = '/api/v1';
+
+/** Every operation of the API, in the order they are matched. */
+export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
+  const endpoints: EndpointDef[] = [...healthEndpoints(deps)];
+  const document = () => buildOpenApiDocument(endpoints, { title: 'Latchwork API', version: deps.config.version, serverUrl: API_PREFIX });
+  endpoints.push(
+    endpoint({
+      method: 'get',
+      path: '/openapi.json',
+      summary: 'This API described as OpenAPI 3.1',
+      tags: ['system'],
+      permission: 'public',
+      handle: () => document(),
+    }),
+  );
+  return endpoints;
+}
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp(deps: ApiDeps): express.Express {
+  const app = express();
+  app.disable('x-powered-by');
+  // The gateway in front of the API is on loopback; trust it for the client's address only.
+  app.set('trust proxy', 'loopback');
+  app.use(helmet());
+  app.use(requestLogger(deps.logger));
+  app.use(API_PREFIX, express.json({ limit: '1mb' }));
+  app.use(API_PREFIX, routerFor(apiEndpoints(deps)));
+  app.use(`${API_PREFIX}/docs`, docsRouter(`${API_PREFIX}/openapi.json`));
+  app.use(notFoundHandler);
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,21 @@
+import type { Kysely } from 'kysely';
+import type { Redis } from 'ioredis';
+import type { Client as MinioClient } from 'minio';
+import type { Transporter } from 'nodemailer';
+import type Stripe from 'stripe';
+import type { Logger } from 'pino';
+import type { Queue } from 'bullmq';
+import type { Database } from '@latchwork/shared-db';
+import type { MailJob } from '@latchwork/shared-queues';
+
+/** Everything the API talks to, passed in so that tests can build the app around real or fake parts. */
+export interface ApiDeps {
+  db: Kysely<Database>;
+  redis: Redis;
+  objectStore: { client: MinioClient; bucket: string };
+  mailer: Transporter;
+  payments: Stripe;
+  mailQueue: Queue<MailJob>;
+  logger: Logger;
+  config: { appUrl: string; version: string };
+}

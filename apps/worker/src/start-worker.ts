@@ -1,0 +1,30 @@
+import { Worker } from 'bullmq';
+import type { Redis } from 'ioredis';
+import type { Logger } from 'pino';
+import { MAIL_QUEUE, type MailJob } from '@latchwork/shared-queues';
+import { mailProcessor, type MailProcessorDeps } from './mail.processor';
+
+/** Starts one BullMQ worker per queue. Returned so tests and main.ts can close them. */
+export function startWorkers(connection: Redis, deps: MailProcessorDeps, logger: Logger): Worker[] {
+  const mail = new Worker<MailJob>(MAIL_QUEUE, mailProcessor(deps), { connection, concurrency: 4 });
+  for (const worker of [mail]) {
+    worker.on('completed', (job) => logger.info({ queue: worker.name, jobId: job.id }, 'job done'));
+    worker.on('failed', (job, err) =>
+      logger.warn({ queue: worker.name, jobId: job?.id, attempts: job?.attemptsMade, err: err.message }, 'job failed'),
+    );
+    worker.on('error', (err) => logger.error({ err }, 'worker error'));
+  }
+  return [mail];
+}
+
+/**
+ * Graceful stop: `close()` lets the job in hand finish; if it has not within the grace
+ * period, force-close so its lock lapses and another worker copy picks the job up again.
+ */
+export async function stopWorkers(workers: Worker[], graceMs = 20_000): Promise<void> {
+  let timer: NodeJS.Timeout | undefined;
+  const forced = new Promise<'forced'>((resolve) => (timer = setTimeout(() => resolve('forced'), graceMs)));
+  const outcome = await Promise.race([Promise.all(workers.map((w) => w.close())), forced]);
+  clearTimeout(timer);
+  if (outcome === 'forced') await Promise.all(workers.map((w) => w.close(true)));
+}

@@ -1,0 +1,61 @@
+// Flat config for the whole workspace. Module boundaries are enforced on three tag axes
+// (scope, type, platform); see DEVELOPERS.md for what each tag means.
+import nx from '@nx/eslint-plugin';
+import tseslint from 'typescript-eslint';
+import angular from 'angular-eslint';
+
+const nodeOnly = ['kysely', 'pg', 'express', 'bullmq', 'ioredis', 'minio', 'nodemailer', 'pino', 'stripe'];
+
+export default tseslint.config(
+  {
+    ignores: ['**/node_modules', '**/dist', '**/tmp', '**/.angular', '**/.nx', '.local', 'tests/output'],
+  },
+  ...nx.configs['flat/base'],
+  ...nx.configs['flat/typescript'],
+  ...nx.configs['flat/javascript'],
+  {
+    files: ['**/*.ts', '**/*.mjs', '**/*.js'],
+    rules: {
+      '@nx/enforce-module-boundaries': [
+        'error',
+        {
+          enforceBuildableLibDependency: true,
+          allow: [],
+          depConstraints: [
+            // scope: a domain's libraries use their own scope and shared only
+            { sourceTag: 'scope:shared', onlyDependOnLibsWithTags: ['scope:shared'] },
+            { sourceTag: 'scope:takeoff', onlyDependOnLibsWithTags: ['scope:takeoff', 'scope:shared'] },
+            // type: layers depend downwards only
+            { sourceTag: 'type:app', onlyDependOnLibsWithTags: ['type:feature', 'type:ui', 'type:data-access', 'type:server', 'type:db', 'type:contracts', 'type:domain', 'type:util'] },
+            { sourceTag: 'type:feature', onlyDependOnLibsWithTags: ['type:feature', 'type:ui', 'type:data-access', 'type:contracts', 'type:domain', 'type:util'] },
+            { sourceTag: 'type:ui', onlyDependOnLibsWithTags: ['type:ui', 'type:contracts', 'type:domain', 'type:util'] },
+            { sourceTag: 'type:data-access', onlyDependOnLibsWithTags: ['type:data-access', 'type:contracts', 'type:domain', 'type:util'] },
+            { sourceTag: 'type:server', onlyDependOnLibsWithTags: ['type:server', 'type:db', 'type:contracts', 'type:domain', 'type:util'] },
+            { sourceTag: 'type:db', onlyDependOnLibsWithTags: ['type:db', 'type:util'] },
+            { sourceTag: 'type:contracts', onlyDependOnLibsWithTags: ['type:contracts', 'type:domain', 'type:util'] },
+            { sourceTag: 'type:domain', onlyDependOnLibsWithTags: ['type:domain', 'type:util'], allowedExternalImports: ['decimal.js'] },
+            { sourceTag: 'type:util', onlyDependOnLibsWithTags: ['type:util'] },
+            // platform: browser code never reaches server packages; neutral code neither side's
+            { sourceTag: 'platform:web', onlyDependOnLibsWithTags: ['platform:web', 'platform:neutral'], bannedExternalImports: nodeOnly },
+            { sourceTag: 'platform:node', onlyDependOnLibsWithTags: ['platform:node', 'platform:neutral'], bannedExternalImports: ['@angular/*'] },
+            { sourceTag: 'platform:neutral', onlyDependOnLibsWithTags: ['platform:neutral'], bannedExternalImports: [...nodeOnly, '@angular/*', 'node:*'] },
+          ],
+        },
+      ],
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+    },
+  },
+  {
+    files: ['apps/web/**/*.ts'],
+    extends: [...angular.configs.tsRecommended],
+    processor: angular.processInlineTemplates,
+    rules: {
+      '@angular-eslint/directive-selector': ['error', { type: 'attribute', prefix: 'lw', style: 'camelCase' }],
+      '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'lw', style: 'kebab-case' }],
+    },
+  },
+  {
+    files: ['apps/web/**/*.html'],
+    extends: [...angular.configs.templateRecommended, ...angular.configs.templateAccessibility],
+  },
+);

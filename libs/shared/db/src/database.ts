@@ -1,0 +1,85 @@
+import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
+
+/** A timestamp column: read as Date, written as Date or ISO string, defaulted by the database. */
+type CreatedAt = ColumnType<Date, Date | string | undefined, never>;
+type Timestamp = ColumnType<Date, Date | string, Date | string>;
+
+export type Role = 'owner' | 'estimator' | 'stores' | 'bookkeeper' | 'installer';
+export const ROLES: readonly Role[] = ['owner', 'estimator', 'stores', 'bookkeeper', 'installer'];
+
+export type UnitSystem = 'metric' | 'imperial';
+export type EmailStatus = 'queued' | 'sent' | 'failed';
+
+/**
+ * The whole schema as Kysely sees it (camelCase; the CamelCasePlugin maps to snake_case).
+ * Global tables: tenant, appUser. Every other table carries tenantId and is guarded by
+ * row-level security on `app.tenant_id` (see migrations).
+ */
+export interface Database {
+  tenant: {
+    id: Generated<string>;
+    slug: string;
+    name: string;
+    addressLines: ColumnType<string[], string[] | undefined, string[]>;
+    currency: string;
+    units: UnitSystem;
+    /** Default tax rate in basis points (2000 = 20 %): integers, never floats. */
+    defaultTaxRateBp: number;
+    paymentTermsDays: number;
+    numberPrefixes: ColumnType<Record<string, string>, string | undefined, string>;
+    createdAt: CreatedAt;
+  };
+  appUser: {
+    id: Generated<string>;
+    email: string;
+    name: string;
+    createdAt: CreatedAt;
+  };
+  membership: {
+    tenantId: string;
+    userId: string;
+    role: Role;
+    createdAt: CreatedAt;
+  };
+  auditLog: {
+    id: Generated<string>;
+    tenantId: string;
+    userId: string | null;
+    action: string;
+    subject: string | null;
+    detail: ColumnType<unknown, string | undefined, never>;
+    ipAddress: string | null;
+    createdAt: CreatedAt;
+  };
+  file: {
+    id: Generated<string>;
+    tenantId: string;
+    objectKey: string;
+    fileName: string;
+    contentType: string;
+    sizeBytes: ColumnType<string, number | bigint, never>;
+    uploadedBy: string | null;
+    createdAt: CreatedAt;
+  };
+  emailLog: {
+    id: Generated<string>;
+    tenantId: string;
+    toAddress: string;
+    subject: string;
+    template: string;
+    status: EmailStatus;
+    messageId: string | null;
+    error: string | null;
+    attempts: ColumnType<number, number | undefined, number>;
+    createdAt: CreatedAt;
+    sentAt: Timestamp | null;
+  };
+}
+
+export type Tenant = Selectable<Database['tenant']>;
+export type NewTenant = Insertable<Database['tenant']>;
+export type AppUser = Selectable<Database['appUser']>;
+export type NewAppUser = Insertable<Database['appUser']>;
+export type Membership = Selectable<Database['membership']>;
+export type AuditEntry = Selectable<Database['auditLog']>;
+export type EmailLogEntry = Selectable<Database['emailLog']>;

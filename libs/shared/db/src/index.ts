@@ -1,0 +1,4 @@
+export * from './database';
+export * from './connect';
+export * from './tenant-scope';
+export * from './migrate';

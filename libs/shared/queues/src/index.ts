@@ -1,0 +1,3 @@
+export * from './connection';
+export * from './mail-queue';
+export * from './mail-templates';

@@ -1,0 +1,51 @@
+import { Queue, type ConnectionOptions, type JobsOptions } from 'bullmq';
+import { z } from 'zod';
+import type { Kysely } from 'kysely';
+import { withTenant, type Database, type TenantScope } from '@latchwork/shared-db';
+import { MAIL_TEMPLATES, type MailTemplateName } from './mail-templates';
+
+export const MAIL_QUEUE = 'mail';
+
+export const mailJobSchema = z.object({
+  tenantId: z.uuid(),
+  emailLogId: z.uuid(),
+  to: z.email(),
+  template: z.enum(Object.keys(MAIL_TEMPLATES) as [MailTemplateName, ...MailTemplateName[]]),
+  params: z.record(z.string(), z.string()),
+});
+export type MailJob = z.infer<typeof mailJobSchema>;
+
+/** Retries with exponential backoff: 2 s, 4 s, 8 s, 16 s, 32 s (about a minute in all). */
+export const MAIL_JOB_OPTIONS: JobsOptions = {
+  attempts: 6,
+  backoff: { type: 'exponential', delay: 2000 },
+  removeOnComplete: { age: 7 * 24 * 3600 },
+  removeOnFail: false,
+};
+
+export function createMailQueue(connection: ConnectionOptions): Queue<MailJob> {
+  return new Queue<MailJob>(MAIL_QUEUE, { connection, defaultJobOptions: MAIL_JOB_OPTIONS });
+}
+
+/**
+ * Records the e-mail as queued in the tenant's email log, then hands it to the worker.
+ * The log row comes first so that nothing is sent that the log does not know about.
+ */
+export async function enqueueMail(
+  db: Kysely<Database>,
+  queue: Queue<MailJob>,
+  scope: TenantScope,
+  message: { to: string; template: MailTemplateName; params: Record<string, string> },
+): Promise<string> {
+  const subject = MAIL_TEMPLATES[message.template](message.params).subject;
+  const row = await withTenant(db, scope, (tx) =>
+    tx
+      .insertInto('emailLog')
+      .values({ tenantId: scope.tenantId, toAddress: message.to, subject, template: message.template, status: 'queued' })
+      .returning('id')
+      .executeTakeFirstOrThrow(),
+  );
+  const job: MailJob = mailJobSchema.parse({ tenantId: scope.tenantId, emailLogId: row.id, ...message });
+  await queue.add(message.template, job, { jobId: row.id });
+  return row.id;
+}

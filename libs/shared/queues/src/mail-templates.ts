@@ -1,0 +1,44 @@
+/** A rendered e-mail. Text is always present: many site phones read mail as plain text. */
+export interface RenderedMail {
+  subject: string;
+  text: string;
+  html: string;
+}
+
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string);
+
+function layout(title: string, paragraphs: string[], action?: { label: string; url: string }): string {
+  const body = paragraphs.map((p) => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join('');
+  const button = action
+    ? `<p><a href="${escapeHtml(action.url)}" style="background:#1f4e5a;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(action.label)}</a></p>`
+    : '';
+  return `<!doctype html><html><body style="font-family:sans-serif;color:#1d2327;max-width:560px">
+<h1 style="font-size:20px">${escapeHtml(title)}</h1>${body}${button}
+<p style="color:#5b6670;font-size:12px">Sent by Latchwork on behalf of your flooring contractor.</p></body></html>`;
+}
+
+function required(params: Record<string, string>, name: string): string {
+  const value = params[name];
+  if (value === undefined || value === '') throw new Error(`Mail parameter "${name}" is missing`);
+  return value;
+}
+
+/** Every e-mail the product sends, by name. Later features add their own templates here. */
+export const MAIL_TEMPLATES = {
+  notice(params: Record<string, string>): RenderedMail {
+    const title = required(params, 'title');
+    const message = required(params, 'message');
+    return { subject: title, text: `${title}\n\n${message}\n`, html: layout(title, [message]) };
+  },
+  invitation(params: Record<string, string>): RenderedMail {
+    const firm = required(params, 'firm');
+    const url = required(params, 'url');
+    const expires = required(params, 'expires');
+    const subject = `You are invited to ${firm} on Latchwork`;
+    const lines = [`${firm} has invited you to join their team on Latchwork.`, `The link works once and expires ${expires}.`];
+    return { subject, text: `${lines.join('\n')}\n\nSet your password: ${url}\n`, html: layout(subject, lines, { label: 'Set your password', url }) };
+  },
+} satisfies Record<string, (params: Record<string, string>) => RenderedMail>;
+
+export type MailTemplateName = keyof typeof MAIL_TEMPLATES;

@@ -1,0 +1,5 @@
+export * from './errors';
+export * from './error-handler';
+export * from './endpoint';
+export * from './openapi';
+export * from './logger';
