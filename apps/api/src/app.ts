@@ -30,7 +30,9 @@ export function createApp(deps: ApiDeps): express.Express {
   app.disable('x-powered-by');
   // The gateway in front of the API is on loopback; trust it for the client's address only.
   app.set('trust proxy', 'loopback');
-  app.use(helmet());
+  // HSTS and https upgrades belong to the TLS-terminating load balancer in production; on
+  // plain-http loopback they would break the app.
+  app.use(helmet({ strictTransportSecurity: false, contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
   app.use(requestLogger(deps.logger));
   app.use(API_PREFIX, express.json({ limit: '1mb' }));
   app.use(API_PREFIX, routerFor(apiEndpoints(deps)));

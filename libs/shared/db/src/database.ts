@@ -3,6 +3,8 @@ import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
 /** A timestamp column: read as Date, written as Date or ISO string, defaulted by the database. */
 type CreatedAt = ColumnType<Date, Date | string | undefined, never>;
 type Timestamp = ColumnType<Date, Date | string, Date | string>;
+/** A column the database fills with its default when an insert leaves it out. */
+type Defaulted<T> = ColumnType<T, T | undefined, T>;
 
 export type Role = 'owner' | 'estimator' | 'stores' | 'bookkeeper' | 'installer';
 export const ROLES: readonly Role[] = ['owner', 'estimator', 'stores', 'bookkeeper', 'installer'];
@@ -21,12 +23,12 @@ export interface Database {
     slug: string;
     name: string;
     addressLines: ColumnType<string[], string[] | undefined, string[]>;
-    currency: string;
-    units: UnitSystem;
+    currency: Defaulted<string>;
+    units: Defaulted<UnitSystem>;
     /** Default tax rate in basis points (2000 = 20 %): integers, never floats. */
-    defaultTaxRateBp: number;
-    paymentTermsDays: number;
-    numberPrefixes: ColumnType<Record<string, string>, string | undefined, string>;
+    defaultTaxRateBp: Defaulted<number>;
+    paymentTermsDays: Defaulted<number>;
+    numberPrefixes: Defaulted<Record<string, string>>;
     createdAt: CreatedAt;
   };
   appUser: {
@@ -47,7 +49,7 @@ export interface Database {
     userId: string | null;
     action: string;
     subject: string | null;
-    detail: ColumnType<unknown, string | undefined, never>;
+    detail: ColumnType<unknown, Record<string, unknown> | undefined, never>;
     ipAddress: string | null;
     createdAt: CreatedAt;
   };

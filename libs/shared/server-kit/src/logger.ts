@@ -16,6 +16,11 @@ export function requestLogger(logger: Logger) {
       res.setHeader('X-Request-Id', id);
       return id;
     },
+    // Method, path and status are what an operator reads; headers would be noise and may hold secrets.
+    serializers: {
+      req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+    },
     customLogLevel(_req, res, err) {
       if (err || res.statusCode >= 500) return 'error';
       return res.statusCode >= 400 ? 'warn' : 'info';
