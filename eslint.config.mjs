@@ -25,6 +25,7 @@ export default tseslint.config(
             // scope: a domain's libraries use their own scope and shared only
             { sourceTag: 'scope:shared', onlyDependOnLibsWithTags: ['scope:shared'] },
             { sourceTag: 'scope:takeoff', onlyDependOnLibsWithTags: ['scope:takeoff', 'scope:shared'] },
+            { sourceTag: 'scope:identity', onlyDependOnLibsWithTags: ['scope:identity', 'scope:shared'] },
             // type: layers depend downwards only
             { sourceTag: 'type:app', onlyDependOnLibsWithTags: ['type:feature', 'type:ui', 'type:data-access', 'type:server', 'type:db', 'type:contracts', 'type:domain', 'type:util'] },
             { sourceTag: 'type:feature', onlyDependOnLibsWithTags: ['type:feature', 'type:ui', 'type:data-access', 'type:contracts', 'type:domain', 'type:util'] },

@@ -6,8 +6,8 @@ type Timestamp = ColumnType<Date, Date | string, Date | string>;
 /** A column the database fills with its default when an insert leaves it out. */
 type Defaulted<T> = ColumnType<T, T | undefined, T>;
 
+/** The role column's values; the database's check constraint and @latchwork/identity-domain's ROLES agree. */
 export type Role = 'owner' | 'estimator' | 'stores' | 'bookkeeper' | 'installer';
-export const ROLES: readonly Role[] = ['owner', 'estimator', 'stores', 'bookkeeper', 'installer'];
 
 export type UnitSystem = 'metric' | 'imperial';
 export type EmailStatus = 'queued' | 'sent' | 'failed';
@@ -42,6 +42,14 @@ export interface Database {
     userId: string;
     role: Role;
     createdAt: CreatedAt;
+    invitedBy: string | null;
+    /** Null until the invited person first signs in to this firm. */
+    joinedAt: Timestamp | null;
+  };
+  appSession: {
+    sid: string;
+    sess: unknown;
+    expire: Timestamp;
   };
   auditLog: {
     id: Generated<string>;
