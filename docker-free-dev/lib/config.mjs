@@ -26,6 +26,8 @@ const LOCAL_SECRETS = {
   paymentsSecretKey: 'sk_test_latchwork_local',
   paymentsWebhookSecret: 'whsec_latchwork_local',
   sessionSecret: 'latchwork-local-session-secret-change-me',
+  idpAdminToken: 'latchwork-local-idp-admin-token',
+  idpEventSecret: 'latchwork-local-idp-event-secret',
 };
 
 /** @param {'dev'|'test'} profile */
@@ -71,6 +73,9 @@ export function loadConfig(profile) {
     IDP_REDIRECT_URIS: `${appUrl}/api/v1/auth/callback`,
     IDP_POST_LOGOUT_REDIRECT_URIS: `${appUrl}/`,
     IDP_DATABASE_URL: `postgres://latchwork_owner:${LOCAL_SECRETS.ownerPassword}@${pgBase}`,
+    IDP_ADMIN_TOKEN: LOCAL_SECRETS.idpAdminToken,
+    IDP_EVENT_SECRET: LOCAL_SECRETS.idpEventSecret,
+    IDP_EVENT_URL: `${appUrl}/api/v1/auth/provider-events`,
     SESSION_SECRET: LOCAL_SECRETS.sessionSecret,
   };
   return { profile, ports, dataDir, host, env, secrets: LOCAL_SECRETS };

@@ -1,6 +1,10 @@
 import express from 'express';
 import helmet from 'helmet';
 import { buildOpenApiDocument, endpoint, errorHandler, notFoundHandler, requestLogger, routerFor, type EndpointDef } from '@latchwork/shared-server-kit';
+import {
+  actorMiddleware, auditEndpoints, authEndpoints, csrfProtection, guardEndpoint, meEndpoints, memberEndpoints,
+  providerEventEndpoints, sessionMiddleware, settingsEndpoints, type IdentityDeps,
+} from '@latchwork/identity-server';
 import type { ApiDeps } from './deps';
 import { healthEndpoints } from './health/health.endpoints';
 import { docsRouter } from './docs/docs.router';
@@ -9,7 +13,16 @@ export const API_PREFIX = '/api/v1';
 
 /** Every operation of the API, in the order they are matched. */
 export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
-  const endpoints: EndpointDef[] = [...healthEndpoints(deps)];
+  const identity: IdentityDeps = { db: deps.db, mailQueue: deps.mailQueue, oidc: deps.oidc, idpAdmin: deps.idpAdmin, appUrl: deps.config.appUrl };
+  const endpoints: EndpointDef[] = [
+    ...healthEndpoints(deps),
+    ...authEndpoints(identity),
+    ...providerEventEndpoints({ ...identity, providerEventSecret: deps.config.providerEventSecret }),
+    ...meEndpoints(identity),
+    ...memberEndpoints(identity),
+    ...settingsEndpoints(identity),
+    ...auditEndpoints(identity),
+  ];
   const document = () => buildOpenApiDocument(endpoints, { title: 'Latchwork API', version: deps.config.version, serverUrl: API_PREFIX });
   endpoints.push(
     endpoint({
@@ -34,8 +47,12 @@ export function createApp(deps: ApiDeps): express.Express {
   // plain-http loopback they would break the app.
   app.use(helmet({ strictTransportSecurity: false, contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
   app.use(requestLogger(deps.logger));
-  app.use(API_PREFIX, express.json({ limit: '1mb' }));
-  app.use(API_PREFIX, routerFor(apiEndpoints(deps)));
+  // The raw body is kept for signed webhooks, whose signature covers the exact bytes.
+  app.use(API_PREFIX, express.json({ limit: '1mb', verify: (req, _res, buf) => ((req as { rawBody?: Buffer }).rawBody = buf) }));
+  app.use(API_PREFIX, sessionMiddleware(deps.sessionPool, deps.config.sessionSecret));
+  app.use(API_PREFIX, csrfProtection);
+  app.use(API_PREFIX, actorMiddleware(deps.db));
+  app.use(API_PREFIX, routerFor(apiEndpoints(deps), { guard: guardEndpoint }));
   app.use(`${API_PREFIX}/docs`, docsRouter(`${API_PREFIX}/openapi.json`));
   app.use(notFoundHandler);
   app.use(errorHandler);

@@ -4,6 +4,8 @@ import Stripe from 'stripe';
 import { createDb } from '@latchwork/shared-db';
 import { createMailQueue, createRedisConnection } from '@latchwork/shared-queues';
 import { createLogger } from '@latchwork/shared-server-kit';
+import pg from 'pg';
+import { httpIdentityProviderAdmin, OidcClient } from '@latchwork/identity-server';
 import type { ApiDeps } from './deps';
 
 function required(name: string): string {
@@ -36,11 +38,26 @@ export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
     maxNetworkRetries: 1,
   });
   const mailQueue = createMailQueue(createRedisConnection(required('REDIS_URL')));
+  const sessionPool = new pg.Pool({ connectionString: required('DATABASE_URL'), max: 4, application_name: 'latchwork-api-sessions' });
+  const appUrl = required('APP_URL');
+  const oidc = new OidcClient({
+    issuer: required('IDP_ISSUER'),
+    clientId: required('IDP_CLIENT_ID'),
+    clientSecret: required('IDP_CLIENT_SECRET'),
+    callbackUrl: `${appUrl}/api/v1/auth/callback`,
+  });
   return {
-    db, redis, objectStore, mailer, payments, mailQueue, logger,
-    config: { appUrl: required('APP_URL'), version: process.env['LW_VERSION'] ?? '0.1.0' },
+    db, redis, objectStore, mailer, payments, mailQueue, logger, sessionPool, oidc,
+    idpAdmin: httpIdentityProviderAdmin(required('IDP_ISSUER'), required('IDP_ADMIN_TOKEN')),
+    config: {
+      appUrl,
+      version: process.env['LW_VERSION'] ?? '0.1.0',
+      sessionSecret: required('SESSION_SECRET'),
+      providerEventSecret: required('IDP_EVENT_SECRET'),
+    },
     async close() {
       await mailQueue.close();
+      await sessionPool.end();
       await db.destroy();
       redis.disconnect();
       mailer.close();

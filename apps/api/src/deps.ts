@@ -7,6 +7,8 @@ import type { Logger } from 'pino';
 import type { Queue } from 'bullmq';
 import type { Database } from '@latchwork/shared-db';
 import type { MailJob } from '@latchwork/shared-queues';
+import type { Pool } from 'pg';
+import type { IdentityProviderAdmin, OidcClient } from '@latchwork/identity-server';
 
 /** Everything the API talks to, passed in so that tests can build the app around real or fake parts. */
 export interface ApiDeps {
@@ -17,5 +19,9 @@ export interface ApiDeps {
   payments: Stripe;
   mailQueue: Queue<MailJob>;
   logger: Logger;
-  config: { appUrl: string; version: string };
+  /** A small pool of its own for the session store (connect-pg-simple speaks pg directly). */
+  sessionPool: Pool;
+  oidc: OidcClient;
+  idpAdmin: IdentityProviderAdmin;
+  config: { appUrl: string; version: string; sessionSecret: string; providerEventSecret: string };
 }

@@ -39,6 +39,13 @@ export const MAIL_TEMPLATES = {
     const lines = [`${firm} has invited you to join their team on Latchwork.`, `The link works once and expires ${expires}.`];
     return { subject, text: `${lines.join('\n')}\n\nSet your password: ${url}\n`, html: layout(subject, lines, { label: 'Set your password', url }) };
   },
+  invitationExisting(params: Record<string, string>): RenderedMail {
+    const firm = required(params, 'firm');
+    const url = required(params, 'url');
+    const subject = `You have been added to ${firm} on Latchwork`;
+    const lines = [`${firm} has added you to their team on Latchwork.`, 'Sign in with your existing Latchwork password and choose the firm at the top of the page.'];
+    return { subject, text: `${lines.join('\n')}\n\nSign in: ${url}\n`, html: layout(subject, lines, { label: 'Sign in', url }) };
+  },
 } satisfies Record<string, (params: Record<string, string>) => RenderedMail>;
 
 export type MailTemplateName = keyof typeof MAIL_TEMPLATES;

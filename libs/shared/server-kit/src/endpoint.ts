@@ -57,11 +57,20 @@ function parsePart(schema: Schema, value: unknown, part: string): unknown {
   throw new ValidationError(`Invalid ${part}${where}: ${first?.message ?? 'check the input'}`, problems);
 }
 
-/** Builds an Express router from endpoint declarations, in declaration order. */
-export function routerFor(endpoints: readonly EndpointDef[]): Router {
+export interface RouterOptions {
+  /** Throws (401/403) unless the request may use an operation guarded by `permission`. */
+  guard?: (req: Request, permission: string) => void | Promise<void>;
+}
+
+/**
+ * Builds an Express router from endpoint declarations, in declaration order. The guard
+ * runs before validation, so a caller without access learns nothing from error details.
+ */
+export function routerFor(endpoints: readonly EndpointDef[], options: RouterOptions = {}): Router {
   const router = Router();
   for (const def of endpoints) {
     router[def.method](def.path, async (req, res) => {
+      await options.guard?.(req, def.permission);
       const body = parsePart(def.body, req.body, 'body');
       const query = parsePart(def.query, req.query, 'query');
       const params = parsePart(def.params, req.params, 'params');
