@@ -7,7 +7,7 @@ import {
 } from '@latchwork/identity-server';
 import type { ApiDeps } from './deps';
 import { healthEndpoints } from './health/health.endpoints';
-import { docsRouter } from './docs/docs.router';
+import { DOCS_ROUTES, docsRouter } from './docs/docs.router';
 
 export const API_PREFIX = '/api/v1';
 
@@ -35,6 +35,18 @@ export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
     }),
   );
   return endpoints;
+}
+
+/**
+ * Who may call each route, keyed `METHOD /api/v1/path` as Express sees it: the declared
+ * endpoints and the API reference pages. The route walker test checks every route of the
+ * router stack against this.
+ */
+export function routeAccess(deps: ApiDeps): Map<string, string> {
+  const access = new Map<string, string>();
+  for (const e of apiEndpoints(deps)) access.set(`${e.method.toUpperCase()} ${API_PREFIX}${e.path}`, e.permission);
+  for (const d of DOCS_ROUTES) access.set(`${d.method.toUpperCase()} ${API_PREFIX}/docs${d.path}`, d.permission);
+  return access;
 }
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */

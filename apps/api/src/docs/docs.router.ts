@@ -4,6 +4,12 @@ import path from 'node:path';
 
 const require = createRequire(__filename);
 
+/** The pages this router serves (besides swagger-ui's static files), for the route walker. */
+export const DOCS_ROUTES = [
+  { method: 'get', path: '/', permission: 'public' },
+  { method: 'get', path: '/start.js', permission: 'public' },
+] as const;
+
 /**
  * The browsable API reference: swagger-ui-dist served from node_modules (no CDN), started
  * by a script file of ours rather than an inline script so the CSP can stay strict.

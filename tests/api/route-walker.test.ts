@@ -1,0 +1,139 @@
+import request from 'supertest';
+import type { Express } from 'express';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { withTenant } from '@latchwork/shared-db';
+import { isPermission, ROLES, roleHas, type Role } from '@latchwork/identity-domain';
+import { routeAccess } from '../../apps/api/src/app';
+import { createTestApi } from './api-harness';
+import { demoIds, sessionFor } from './sessions';
+
+const { app, deps } = createTestApi();
+afterAll(() => deps.close());
+
+interface Route {
+  method: string;
+  path: string;
+}
+
+/** Every route of the Express router stack, nested routers included. */
+function routesOf(express: Express): Route[] {
+  const found = new Map<string, Route>();
+  const walk = (stack: { route?: { path: string; methods: Record<string, boolean> }; handle: { stack?: unknown[] }; rawPath?: string }[], prefix: string) => {
+    for (const layer of stack) {
+      if (layer.route) {
+        for (const method of Object.keys(layer.route.methods)) {
+          const route = { method: method.toUpperCase(), path: prefix + layer.route.path };
+          found.set(`${route.method} ${route.path}`, route);
+        }
+      } else if (layer.handle.stack) {
+        walk(layer.handle.stack as never, prefix + (typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? layer.rawPath : ''));
+      }
+    }
+  };
+  walk((express as unknown as { router: { stack: never[] } }).router.stack, '');
+  return [...found.values()];
+}
+
+/** A valid body for each state-changing route, so a refusal cannot hide behind a 400. */
+const SAMPLE_BODIES: Record<string, () => object> = {
+  'POST /api/v1/auth/logout': () => ({}),
+  'POST /api/v1/auth/provider-events': () => ({ type: 'sign-in-failed', email: 'nobody@nowhere.test', ipAddress: null, at: new Date().toISOString() }),
+  'PUT /api/v1/me/active-tenant': () => ({ tenantId: ids.tenantA }),
+  'POST /api/v1/members/invitations': () => ({ email: `walker-${Date.now()}-${Math.random().toString(36).slice(2)}@wexbridge-tiling.test`, name: 'Walker Target', role: 'installer' }),
+  'POST /api/v1/members/:userId/invitation': () => ({}),
+  'PATCH /api/v1/members/:userId': () => ({ role: 'stores' }),
+  'DELETE /api/v1/members/:userId': () => ({}),
+  'PUT /api/v1/settings': () => settingsA,
+};
+
+const ids = { tenantA: '', tenantB: '', targetUser: '' };
+let settingsA: object;
+let actorsA: { role: Role; userId: string }[];
+let ownerB: string;
+let nameA = '';
+
+beforeAll(async () => {
+  const { tenant, user } = await demoIds(deps.db);
+  const a = tenant('kestrel-floorworks');
+  ids.tenantA = a.id;
+  nameA = a.name;
+  ids.tenantB = tenant('pennick-flooring').id;
+  ownerB = user('owner@pennick-flooring.test');
+  actorsA = [
+    { role: 'owner', userId: user('owner@kestrel-floorworks.test') },
+    { role: 'estimator', userId: user('estimator@kestrel-floorworks.test') },
+    { role: 'stores', userId: user('stores@kestrel-floorworks.test') },
+    { role: 'bookkeeper', userId: user('books@kestrel-floorworks.test') },
+    { role: 'installer', userId: user('crew@kestrel-floorworks.test') },
+  ];
+  // A member of firm A who has not joined: the target of member routes, so the walk
+  // removes or changes nobody the other tests rely on.
+  const target = await deps.db.insertInto('appUser').values({ email: `walker-target-${Date.now()}@wexbridge-tiling.test`, name: 'Walker Target' }).returning('id').executeTakeFirstOrThrow();
+  ids.targetUser = target.id;
+  await withTenant(deps.db, { tenantId: ids.tenantA }, (tx) => tx.insertInto('membership').values({ tenantId: ids.tenantA, userId: target.id, role: 'installer', invitedBy: actorsA[0]!.userId, joinedAt: null }).execute());
+  const owner = await sessionFor(deps.db, actorsA[0]!.userId, ids.tenantA);
+  settingsA = (await request(app).get('/api/v1/settings').set('Cookie', owner.cookie)).body;
+});
+
+async function call(route: Route, as?: { userId: string; tenantId: string }) {
+  const path = route.path.replace(':userId', ids.targetUser);
+  const key = `${route.method} ${route.path}`;
+  let req = request(app)[route.method.toLowerCase() as 'get'](path).redirects(0);
+  if (as) {
+    const session = await sessionFor(deps.db, as.userId, as.tenantId);
+    req = req.set('Cookie', session.cookie).set('X-XSRF-TOKEN', session.csrfToken);
+  }
+  if (route.method !== 'GET') req = req.send(SAMPLE_BODIES[key]?.() ?? {});
+  return req;
+}
+
+describe('the route walker', () => {
+  it('finds every route declared in the permission table, and only known permissions', () => {
+    const access = routeAccess(deps);
+    const routes = routesOf(app);
+    expect(routes.length).toBeGreaterThan(10);
+    for (const r of routes) {
+      const permission = access.get(`${r.method} ${r.path}`);
+      expect(permission, `${r.method} ${r.path} has no entry in the permission table`).toBeDefined();
+      expect(permission === 'public' || permission === 'signed-in' || isPermission(permission!), `${r.method} ${r.path}: ${permission}`).toBe(true);
+      if (r.method !== 'GET') expect(SAMPLE_BODIES[`${r.method} ${r.path}`], `${r.method} ${r.path} needs a sample body`).toBeDefined();
+    }
+  });
+
+  it('gets the expected outcome for every route × actor', async () => {
+    const access = routeAccess(deps);
+    const unexpected: string[] = [];
+    let tried = 0;
+    // The owner goes last: its calls change or remove the target member.
+    for (const route of routesOf(app)) {
+      const permission = access.get(`${route.method} ${route.path}`)!;
+      const label = `${route.method} ${route.path}`;
+      const anonymous = await call(route);
+      tried++;
+      if (permission !== 'public' && anonymous.status !== 401) unexpected.push(`${label} anonymous → ${anonymous.status}, expected 401`);
+      if (anonymous.status >= 500) unexpected.push(`${label} anonymous → ${anonymous.status}`);
+
+      for (const actor of [...actorsA].reverse()) {
+        const res = await call(route, { userId: actor.userId, tenantId: ids.tenantA });
+        tried++;
+        const allowed = permission === 'public' || permission === 'signed-in' || roleHas(actor.role, permission as never);
+        if (allowed && (res.status === 401 || res.status === 403 || res.status >= 500)) unexpected.push(`${label} as ${actor.role} → ${res.status}, expected access`);
+        if (!allowed && res.status !== 403) unexpected.push(`${label} as ${actor.role} → ${res.status}, expected 403`);
+      }
+
+      // The owner of firm B holds every permission, in firm B: aimed at A's ids it must get 404,
+      // and whatever it may read must hold nothing of firm A.
+      const other = await call(route, { userId: ownerB, tenantId: ids.tenantB });
+      tried++;
+      if (route.path.includes(':') && other.status !== 404) unexpected.push(`${label} as firm B at firm A's id → ${other.status}, expected 404`);
+      const body = JSON.stringify(other.body ?? '');
+      if (body.includes(ids.tenantA) || body.includes(ids.targetUser) || body.includes(nameA)) unexpected.push(`${label} as firm B leaks firm A's data`);
+    }
+    console.log(`route walker: ${routesOf(app).length} routes × ${2 + actorsA.length} actors = ${tried} calls, ${unexpected.length} unexpected`);
+    expect(unexpected).toEqual([]);
+  });
+
+  it('covers every role', () => {
+    expect(actorsA.map((a) => a.role).sort()).toEqual([...ROLES].sort());
+  });
+});
