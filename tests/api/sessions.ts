@@ -9,6 +9,7 @@ const env = (name: string) => {
 };
 
 export interface TestSession {
+  sid: string;
   /** The Cookie header value: the signed session cookie and the CSRF cookie. */
   cookie: string;
   csrfToken: string;
@@ -27,7 +28,7 @@ export async function sessionFor(db: Kysely<Database>, userId: string, tenantId:
   const sess = { cookie: { originalMaxAge: 3600_000, expires: expire.toISOString(), httpOnly: true, path: '/', sameSite: 'lax' }, userId, tenantId, csrfToken };
   await db.insertInto('appSession').values({ sid, sess: JSON.stringify(sess), expire }).execute();
   const signature = createHmac('sha256', env('SESSION_SECRET')).update(sid).digest('base64').replace(/=+$/, '');
-  return { cookie: `lw.sid=${encodeURIComponent(`s:${sid}.${signature}`)}; XSRF-TOKEN=${csrfToken}`, csrfToken };
+  return { sid, cookie: `lw.sid=${encodeURIComponent(`s:${sid}.${signature}`)}; XSRF-TOKEN=${csrfToken}`, csrfToken };
 }
 
 /** Users of the demo firms by e-mail, with their ids and their firms' ids. */
