@@ -117,7 +117,7 @@ function attempt<T>(f: () => T): T | null {
   try {
     return f();
   } catch (e) {
-    if (e instanceof Error && /Unable to complete output ring|infinite loop/i.test(e.message)) return null;
+    if (e instanceof Error && /Unable to (complete output ring|find segment)|SweepLine|infinite loop/i.test(e.message)) return null;
     throw e;
   }
 }
@@ -214,7 +214,7 @@ const angledFloor = fc
     R: fc.integer({ min: 1500, max: 4000 }),
     obstacles: fc.array(
       fc.record({ r: fc.double({ min: 0, max: 0.5, noNaN: true }), t: fc.double({ min: 0, max: 6.28, noNaN: true }), size: fc.integer({ min: 150, max: 500 }), rot: fc.double({ min: 0, max: 6.28, noNaN: true }), sides: fc.integer({ min: 3, max: 4 }) }),
-      { maxLength: 3 },
+      { minLength: 1, maxLength: 3 },
     ),
     grid: gridArb,
   })

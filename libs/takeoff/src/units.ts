@@ -21,9 +21,10 @@ export function feetInchesFromMm(mm: number): { feet: number; inches: number } {
   const sign = mm < 0 ? -1 : 1;
   const totalInches = Math.abs(mm) / MM_PER_INCH;
   let feet = Math.floor(totalInches / 12);
-  let inches = totalInches - feet * 12;
+  // Rounded to a billionth of an inch so 304.8 mm reads 1 ft 0 in, not 1 ft 1.8e-15 in.
+  let inches = Math.round((totalInches - feet * 12) * 1e9) / 1e9;
   // Guard against 11.9999999 from binary fractions.
-  if (12 - inches < 1e-9) {
+  if (inches >= 12) {
     feet += 1;
     inches = 0;
   }

@@ -12,7 +12,7 @@ export function checkRing(raw: Point[], field: string, out: TakeoffProblem[]): P
     out.push({ field, message: `needs at least 3 distinct points (has ${ring.length})`, point: ring[0] });
     return null;
   }
-  if (Math.abs(signedArea(ring)) < ZERO_AREA_MM2) {
+  if (collinear(ring)) {
     out.push({ field, message: 'has zero area (its points lie on one line)', point: ring[0] });
     return null;
   }
@@ -21,7 +21,31 @@ export function checkRing(raw: Point[], field: string, out: TakeoffProblem[]): P
     out.push({ field, message: 'crosses or touches itself', point: x });
     return null;
   }
+  if (Math.abs(signedArea(ring)) < ZERO_AREA_MM2) {
+    out.push({ field, message: 'has zero area (its points lie on one line)', point: ring[0] });
+    return null;
+  }
   return ring;
+}
+
+/** All points on one line (within a millionth of a millimetre per metre of extent). */
+function collinear(ring: Point[]): boolean {
+  const a = ring[0];
+  let far = a;
+  let best = 0;
+  for (const p of ring) {
+    const d = Math.hypot(p[0] - a[0], p[1] - a[1]);
+    if (d > best) {
+      best = d;
+      far = p;
+    }
+  }
+  if (best === 0) return true;
+  for (const p of ring) {
+    const cross = (far[0] - a[0]) * (p[1] - a[1]) - (far[1] - a[1]) * (p[0] - a[0]);
+    if (Math.abs(cross) / best > 1e-6) return false;
+  }
+  return true;
 }
 
 interface Seg {

@@ -31,7 +31,11 @@ export interface CellAnalysis {
 const SPECK_MM2 = 1;
 const EPS = 1e-7;
 
-export function analyseCell(slices: Slice[], c0: number, r0: number, p: number, geometry: boolean): CellAnalysis {
+/** Slices smaller than this (mm²) are floating-point dust (a grid line a femtometre off a wall). */
+const DUST_MM2 = 1e-6;
+
+export function analyseCell(all: Slice[], c0: number, r0: number, p: number, geometry: boolean): CellAnalysis {
+  const slices = all.filter((s) => s.area >= DUST_MM2);
   slices.sort((a, b) => a.ys - b.ys || a.left[0] - b.left[0]);
   const n = slices.length;
   const parent = new Int32Array(n);
