@@ -1,0 +1,170 @@
+// @ts-check
+// The provider's interaction routes: our sign-in page (GET), the sign-in itself (POST), cancel,
+// consent granted automatically for our own client, and friendly pages for expired sign-ins.
+import express from 'express';
+import { errors } from 'oidc-provider';
+import { messagePage, signInPage } from './views.mjs';
+
+const SIGN_IN_FAILED =
+  'That e-mail and password do not match an account. Check both and try again.';
+
+/**
+ * @param {import('express').Express} app
+ * @param {{
+ *   provider: any,
+ *   accounts: import('./accounts.mjs').AccountStore,
+ *   firstParty: Set<string>,
+ * }} deps
+ */
+export function mountInteractions(app, { provider, accounts, firstParty }) {
+  /**
+   * @param {express.Request} _req
+   * @param {express.Response} res
+   * @param {express.NextFunction} next
+   * @returns {void}
+   */
+  const pageSecurity = (_req, res, next) => {
+    res.set({
+      'Content-Security-Policy':
+        "default-src 'none'; style-src 'self'; img-src 'self' data:; frame-ancestors 'none'; base-uri 'none'",
+      'X-Content-Type-Options': 'nosniff',
+      'Referrer-Policy': 'no-referrer',
+      'Cache-Control': 'no-store',
+    });
+    next();
+  };
+
+  app.get('/interaction/:uid', pageSecurity, async (req, res) => {
+    const details = await provider.interactionDetails(req, res);
+    if (details.uid !== req.params.uid) throw new errors.SessionNotFound('interaction mismatch');
+    const prompt = details.prompt;
+    if (prompt.name === 'login') {
+      res.send(
+        signInPage({
+          uid: details.uid,
+          email: String(details.params['login_hint'] ?? ''),
+          abortUrl: `/interaction/${details.uid}/abort`,
+        }),
+      );
+      return;
+    }
+    if (prompt.name === 'consent' && firstParty.has(String(details.params['client_id']))) {
+      await provider.interactionFinished(
+        req,
+        res,
+        { consent: { grantId: await grantConsent(provider, details) } },
+        { mergeWithLastSubmission: true },
+      );
+      return;
+    }
+    res.status(400).send(
+      messagePage({
+        title: 'Not supported',
+        message: `The "${prompt.name}" step is not supported here.`,
+      }),
+    );
+  });
+
+  app.post(
+    '/interaction/:uid/login',
+    pageSecurity,
+    express.urlencoded({ extended: false, limit: '8kb' }),
+    async (req, res) => {
+      const details = await provider.interactionDetails(req, res);
+      if (details.uid !== req.params.uid || details.prompt.name !== 'login') {
+        throw new errors.SessionNotFound('interaction mismatch');
+      }
+      const email = String(req.body?.email ?? '').trim();
+      const password = String(req.body?.password ?? '');
+      const account = email ? await accounts.findByEmail(email) : undefined;
+      const ok = await accounts.verifyPassword(account, password);
+      if (!account || !ok) {
+        res.status(401).send(
+          signInPage({
+            uid: details.uid,
+            email,
+            error: SIGN_IN_FAILED,
+            abortUrl: `/interaction/${details.uid}/abort`,
+          }),
+        );
+        return;
+      }
+      await provider.interactionFinished(
+        req,
+        res,
+        { login: { accountId: account.id, amr: ['pwd'] } },
+        { mergeWithLastSubmission: false },
+      );
+    },
+  );
+
+  app.get('/interaction/:uid/abort', async (req, res) => {
+    await provider.interactionDetails(req, res);
+    await provider.interactionFinished(
+      req,
+      res,
+      { error: 'access_denied', error_description: 'The person cancelled the sign-in.' },
+      { mergeWithLastSubmission: false },
+    );
+  });
+}
+
+/**
+ * The last error handler: an expired or unknown interaction gets a friendly page.
+ * @param {{ href: string, text: string }} fallbackLink
+ */
+export function interactionErrors(fallbackLink) {
+  /**
+   * @param {any} error
+   * @param {express.Request} _req
+   * @param {express.Response} res
+   * @param {express.NextFunction} _next
+   * @returns {void}
+   */
+  const onError = (error, _req, res, _next) => {
+    if (error instanceof errors.SessionNotFound || error?.name === 'SessionNotFound') {
+      res
+        .status(400)
+        .set('Cache-Control', 'no-store')
+        .send(
+          messagePage({
+            title: 'This sign-in has expired',
+            message:
+              'The sign-in page was open too long or was already used. Start again from Latchwork.',
+            link: fallbackLink,
+          }),
+        );
+      return;
+    }
+    console.error('identity-provider:', error);
+    res.status(500).send(
+      messagePage({
+        title: 'Something went wrong',
+        message: 'The sign-in service hit an error. Its log has the details.',
+        link: fallbackLink,
+      }),
+    );
+  };
+  return onError;
+}
+
+/**
+ * Records consent for everything the interaction is missing (our own client only).
+ * @param {any} provider
+ * @param {any} details
+ * @returns {Promise<string>}
+ */
+async function grantConsent(provider, details) {
+  const { prompt, params, session } = details;
+  const grant = details.grantId
+    ? await provider.Grant.find(details.grantId)
+    : new provider.Grant({ accountId: session.accountId, clientId: params.client_id });
+  if (!grant) throw new errors.SessionNotFound('grant not found');
+  const missing = prompt.details ?? {};
+  if (missing.missingOIDCScope) grant.addOIDCScope(missing.missingOIDCScope.join(' '));
+  if (missing.missingOIDCClaims) grant.addOIDCClaims(missing.missingOIDCClaims);
+  for (const [indicator, scopes] of Object.entries(missing.missingResourceScopes ?? {})) {
+    grant.addResourceScope(indicator, /** @type {string[]} */ (scopes).join(' '));
+  }
+  return grant.save();
+}

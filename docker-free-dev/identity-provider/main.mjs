@@ -1,0 +1,50 @@
+// @ts-check
+// Runs the identity-provider fake from environment variables:
+//   IDP_PORT (3400), IDP_ISSUER (http://127.0.0.1:<port>), IDP_CLIENT_ID (latchwork),
+//   IDP_CLIENT_SECRET, IDP_REDIRECT_URIS and IDP_POST_LOGOUT_REDIRECT_URIS (comma lists),
+//   IDP_TOKEN_ENDPOINT_AUTH_METHOD (client_secret_post), IDP_DATABASE_URL (accounts in
+//   PostgreSQL; a JSON file under LW_DATA_DIR otherwise), LW_DATA_DIR (<repo>/.local/data).
+import { fileURLToPath } from 'node:url';
+import { DEFAULT_CLIENT_SECRET, start } from './server.mjs';
+
+const env = process.env;
+/** @param {string | undefined} value @param {string} fallback */
+const list = (value, fallback) =>
+  (value || fallback)
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
+const port = Number(env['IDP_PORT'] || 3400);
+
+try {
+  const idp = await start({
+    port,
+    issuer: env['IDP_ISSUER'] || `http://127.0.0.1:${port}`,
+    clientId: env['IDP_CLIENT_ID'] || 'latchwork',
+    clientSecret: env['IDP_CLIENT_SECRET'] || DEFAULT_CLIENT_SECRET,
+    redirectUris: list(env['IDP_REDIRECT_URIS'], 'http://127.0.0.1:4200/api/v1/auth/callback'),
+    postLogoutRedirectUris: list(env['IDP_POST_LOGOUT_REDIRECT_URIS'], 'http://127.0.0.1:4200/'),
+    tokenEndpointAuthMethod:
+      /** @type {any} */ (env['IDP_TOKEN_ENDPOINT_AUTH_METHOD']) || undefined,
+    databaseUrl: env['IDP_DATABASE_URL'] || undefined,
+    dataDir: env['LW_DATA_DIR'] || fileURLToPath(new URL('../../.local/data', import.meta.url)),
+  });
+  console.log(`identity-provider listening on ${idp.url}`);
+  let closing = false;
+  const stop = async () => {
+    if (closing) return;
+    closing = true;
+    try {
+      await idp.close();
+      process.exit(0);
+    } catch (error) {
+      console.error('identity-provider: error while closing', error);
+      process.exit(1);
+    }
+  };
+  process.on('SIGTERM', stop);
+  process.on('SIGINT', stop);
+} catch (error) {
+  console.error('identity-provider: could not start:', error);
+  process.exit(1);
+}

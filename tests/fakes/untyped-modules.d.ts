@@ -1,0 +1,3 @@
+// Packages the fakes use that ship no TypeScript types (and have no @types package installed).
+declare module 'oidc-provider';
+declare module 's3rver';
