@@ -71,6 +71,7 @@ try {
   check('lint', 'npx', ['eslint', '.', '--max-warnings=0']);
   check('typecheck', 'npx', ['nx', 'run-many', '-t', 'typecheck', '--output-style=static']);
   check('typecheck tests', 'npx', ['tsc', '-p', 'tests/tsconfig.json', '--noEmit']);
+  check('typecheck fakes', 'npx', ['tsc', '-p', 'tests/fakes/tsconfig.json', '--noEmit']);
   vitest('unit', []);
 
   log('web component tests …');

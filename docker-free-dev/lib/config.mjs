@@ -78,5 +78,7 @@ export function loadConfig(profile) {
     IDP_EVENT_URL: `${appUrl}/api/v1/auth/provider-events`,
     SESSION_SECRET: LOCAL_SECRETS.sessionSecret,
   };
+  // The identity provider's own tests then also run against PostgreSQL instead of skipping.
+  if (profile === 'test') env.LW_TEST_IDP_DATABASE_URL = env.DATABASE_OWNER_URL;
   return { profile, ports, dataDir, host, env, secrets: LOCAL_SECRETS };
 }

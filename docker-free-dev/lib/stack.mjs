@@ -3,6 +3,7 @@ import path from 'node:path';
 import { startPostgres, stopPostgres } from './postgres.mjs';
 import { startRedis, stopRedis } from './redis.mjs';
 import { runStep, startProcess, stopProcesses, waitForUrl } from './processes.mjs';
+import { ensureDemoAccounts } from '../demo/identity-accounts.mjs';
 
 const FAKES = ['identity-provider', 'object-store', 'mail', 'payments'];
 
@@ -29,6 +30,8 @@ export async function startServices(cfg, log) {
   log('Migrating the database …');
   if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'migrate']).ok) throw new Error('migration failed');
   if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'seed-if-empty']).ok) throw new Error('loading the demo data failed');
+  const accounts = await ensureDemoAccounts(cfg);
+  if (accounts) log(`Demo sign-ins created at the identity provider: ${accounts}`);
 }
 
 export function buildApps(cfg, log) {
