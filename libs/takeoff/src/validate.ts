@@ -127,7 +127,7 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
   const outline = checkRing(outlineRaw, 'outline', out);
   if (outline) {
     const areaM2 = Math.abs(signedArea(outline)) / 1e6;
-    if (areaM2 > LIMITS.maxAreaM2) {
+    if (areaM2 > LIMITS.maxAreaM2 * (1 + 1e-9)) {
       out.push({ field: 'outline', message: `floor area ${Math.round(areaM2)} m² is over the ${LIMITS.maxAreaM2} m² limit` });
     }
   }

@@ -34,16 +34,18 @@ const EPS = 1e-7;
 /** Slices smaller than this (mm²) are floating-point dust (a grid line a femtometre off a wall). */
 const DUST_MM2 = 1e-6;
 
+function find(parent: Int32Array, i: number): number {
+  while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+  return i;
+}
+
 export function analyseCell(all: Slice[], c0: number, r0: number, p: number, geometry: boolean): CellAnalysis {
-  const slices = all.filter((s) => s.area >= DUST_MM2);
+  const slices: Slice[] = [];
+  for (const s of all) if (s.area >= DUST_MM2) slices.push(s);
   slices.sort((a, b) => a.ys - b.ys || a.left[0] - b.left[0]);
   const n = slices.length;
   const parent = new Int32Array(n);
   for (let i = 0; i < n; i++) parent[i] = i;
-  const find = (i: number): number => {
-    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
-    return i;
-  };
   // up[i]: slices stacked on i; down[i]: how many slices i sits on.
   const upCount = new Int32Array(n);
   const downCount = new Int32Array(n);
@@ -58,7 +60,7 @@ export function analyseCell(all: Slice[], c0: number, r0: number, p: number, geo
       if (Math.abs(B.ys - A.ye) > EPS) continue;
       const overlap = Math.min(aR, B.right[0]) - Math.max(aL, B.left[0]);
       if (overlap <= EPS) continue;
-      parent[find(a)] = find(b);
+      parent[find(parent, a)] = find(parent, b);
       upCount[a]++;
       downCount[b]++;
       upOf[a] = b;
@@ -68,7 +70,7 @@ export function analyseCell(all: Slice[], c0: number, r0: number, p: number, geo
   const area = new Map<number, number[]>(); // root -> [area, minX, minY, maxX, maxY]
   for (let i = 0; i < n; i++) {
     const s = slices[i];
-    const r = find(i);
+    const r = find(parent, i);
     let box = area.get(r);
     if (!box) area.set(r, (box = [0, Infinity, Infinity, -Infinity, -Infinity]));
     box[0] += s.area;
@@ -95,13 +97,17 @@ export function analyseCell(all: Slice[], c0: number, r0: number, p: number, geo
   }
   let kind: CutKind = 'shaped';
   let keptMm = 0;
-  if (real === 1 && only) kind = straightKind(only, c0, r0, p, (k) => (keptMm = k));
+  if (real === 1 && only) {
+    kind = straightKind(only, c0, r0, p);
+    if (kind === 'left-part' || kind === 'right-part') keptMm = only[3] - only[1];
+    else if (kind !== 'shaped') keptMm = only[4] - only[2];
+  }
   const rings = geometry ? buildRings(slices, upCount, downCount, upOf) : [];
   return { size, kind, keptMm, pieces: real, rings };
 }
 
 /** A rectangle spanning the tile one way and touching one side is a straight cut. */
-function straightKind(box: number[], c0: number, r0: number, p: number, kept: (mm: number) => void): CutKind {
+function straightKind(box: number[], c0: number, r0: number, p: number): CutKind {
   const [a, minX, minY, maxX, maxY] = box;
   const w = maxX - minX;
   const h = maxY - minY;
@@ -110,11 +116,9 @@ function straightKind(box: number[], c0: number, r0: number, p: number, kept: (m
   const spansY = Math.abs(minY - r0) < tol && Math.abs(maxY - (r0 + p)) < tol;
   const spansX = Math.abs(minX - c0) < tol && Math.abs(maxX - (c0 + p)) < tol;
   if (spansY && !spansX) {
-    kept(w);
     if (Math.abs(minX - c0) < tol) return 'left-part';
     if (Math.abs(maxX - (c0 + p)) < tol) return 'right-part';
   } else if (spansX && !spansY) {
-    kept(h);
     if (Math.abs(minY - r0) < tol) return 'bottom-part';
     if (Math.abs(maxY - (r0 + p)) < tol) return 'top-part';
   }

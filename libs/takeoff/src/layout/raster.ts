@@ -231,8 +231,9 @@ function cutSlice(
   if (xRa < c0) ys = Math.max(ys, ya + ((c0 - xRa) / (xRb - xRa)) * h);
   else if (xRb < c0) ye = Math.min(ye, ya + ((c0 - xRa) / (xRb - xRa)) * h);
   if (!(ye > ys)) return 0;
-  const L = (y: number) => xLa + ((y - ya) / h) * (xLb - xLa);
-  const R = (y: number) => xRa + ((y - ya) / h) * (xRb - xRa);
+  // Plain arithmetic, no closures: this runs once per boundary cell and slab.
+  const sL = (xLb - xLa) / h;
+  const sR = (xRb - xRa) / h;
   // Kinks: where L crosses c0, where R crosses c1.
   let kL = NaN;
   if ((xLa - c0) * (xLb - c0) < 0) {
@@ -244,31 +245,37 @@ function cutSlice(
     const y = ya + ((c1 - xRa) / (xRb - xRa)) * h;
     if (y > ys && y < ye) kR = y;
   }
-  const lx = (y: number) => Math.min(c1, Math.max(c0, L(y)));
-  const rx = (y: number) => Math.max(c0, Math.min(c1, R(y)));
-  // Exact area: the integrand is linear between the sorted breakpoints.
   let b1 = kL;
   let b2 = kR;
   if (Number.isNaN(b1) || b2 < b1) {
     b1 = kR;
     b2 = kL;
   }
+  // Exact area: the width is linear between the sorted breakpoints.
+  const lxs = clampX(xLa + (ys - ya) * sL, c0, c1);
+  const rxs = clampX(xRa + (ys - ya) * sR, c0, c1);
+  const lxe = clampX(xLa + (ye - ya) * sL, c0, c1);
+  const rxe = clampX(xRa + (ye - ya) * sR, c0, c1);
   let area = 0;
   let yPrev = ys;
-  let wPrev = rx(ys) - lx(ys);
+  let wPrev = rxs - lxs;
   for (let q = 0; q < 3; q++) {
     const y = q === 0 ? b1 : q === 1 ? b2 : ye;
     if (!(y > yPrev)) continue;
-    const wNow = rx(y) - lx(y);
+    const wNow = clampX(xRa + (y - ya) * sR, c0, c1) - clampX(xLa + (y - ya) * sL, c0, c1);
     area += ((wPrev + wNow) * (y - yPrev)) / 2;
     yPrev = y;
     wPrev = wNow;
   }
   if (!(area > 0)) return 0;
   out.push(col, ys, ye, area);
-  if (Number.isNaN(kL)) out.push(2, lx(ys), ys, lx(ye), ye, 0, 0);
-  else out.push(3, lx(ys), ys, c0, kL, lx(ye), ye);
-  if (Number.isNaN(kR)) out.push(2, rx(ys), ys, rx(ye), ye, 0, 0);
-  else out.push(3, rx(ys), ys, c1, kR, rx(ye), ye);
+  if (Number.isNaN(kL)) out.push(2, lxs, ys, lxe, ye, 0, 0);
+  else out.push(3, lxs, ys, c0, kL, lxe, ye);
+  if (Number.isNaN(kR)) out.push(2, rxs, ys, rxe, ye, 0, 0);
+  else out.push(3, rxs, ys, c1, kR, rxe, ye);
   return area;
+}
+
+function clampX(x: number, c0: number, c1: number): number {
+  return x < c0 ? c0 : x > c1 ? c1 : x;
 }
