@@ -4,14 +4,26 @@ import nx from '@nx/eslint-plugin';
 import tseslint from 'typescript-eslint';
 import angular from 'angular-eslint';
 
-const nodeOnly = ['kysely', 'pg', 'express', 'bullmq', 'ioredis', 'minio', 'nodemailer', 'pino', 'stripe'];
+const nodeOnly = [
+  'kysely',
+  'pg',
+  'express',
+  'bullmq',
+  'ioredis',
+  'minio',
+  'nodemailer',
+  'pino',
+  'stripe',
+];
 
 /**
  * Module-boundary rules. Test files and test configs may also use the test-only packages
  * (runners and reference libraries) that domain code itself must never import.
  */
 function boundaries({ tests }) {
-  const domainExternals = tests ? ['decimal.js', 'vitest', 'vitest/*', 'fast-check', 'polygon-clipping', '@flatten-js/core'] : ['decimal.js'];
+  const domainExternals = tests
+    ? ['decimal.js', 'vitest', 'vitest/*', 'fast-check', 'polygon-clipping', '@flatten-js/core']
+    : ['decimal.js'];
   const neutralBanned = tests ? nodeOnly : [...nodeOnly, 'node:*'];
   return [
     'error',
@@ -22,21 +34,85 @@ function boundaries({ tests }) {
         // scope: a domain's libraries use their own scope and shared only
         { sourceTag: 'scope:shared', onlyDependOnLibsWithTags: ['scope:shared'] },
         { sourceTag: 'scope:takeoff', onlyDependOnLibsWithTags: ['scope:takeoff', 'scope:shared'] },
-        { sourceTag: 'scope:identity', onlyDependOnLibsWithTags: ['scope:identity', 'scope:shared'] },
+        {
+          sourceTag: 'scope:identity',
+          onlyDependOnLibsWithTags: ['scope:identity', 'scope:shared'],
+        },
         // type: layers depend downwards only
-        { sourceTag: 'type:app', onlyDependOnLibsWithTags: ['type:feature', 'type:ui', 'type:data-access', 'type:server', 'type:db', 'type:contracts', 'type:domain', 'type:util'] },
-        { sourceTag: 'type:feature', onlyDependOnLibsWithTags: ['type:feature', 'type:ui', 'type:data-access', 'type:contracts', 'type:domain', 'type:util'] },
-        { sourceTag: 'type:ui', onlyDependOnLibsWithTags: ['type:ui', 'type:contracts', 'type:domain', 'type:util'] },
-        { sourceTag: 'type:data-access', onlyDependOnLibsWithTags: ['type:data-access', 'type:contracts', 'type:domain', 'type:util'] },
-        { sourceTag: 'type:server', onlyDependOnLibsWithTags: ['type:server', 'type:db', 'type:contracts', 'type:domain', 'type:util'] },
+        {
+          sourceTag: 'type:app',
+          onlyDependOnLibsWithTags: [
+            'type:feature',
+            'type:ui',
+            'type:data-access',
+            'type:server',
+            'type:db',
+            'type:contracts',
+            'type:domain',
+            'type:util',
+          ],
+        },
+        {
+          sourceTag: 'type:feature',
+          onlyDependOnLibsWithTags: [
+            'type:feature',
+            'type:ui',
+            'type:data-access',
+            'type:contracts',
+            'type:domain',
+            'type:util',
+          ],
+        },
+        {
+          sourceTag: 'type:ui',
+          onlyDependOnLibsWithTags: ['type:ui', 'type:contracts', 'type:domain', 'type:util'],
+        },
+        {
+          sourceTag: 'type:data-access',
+          onlyDependOnLibsWithTags: [
+            'type:data-access',
+            'type:contracts',
+            'type:domain',
+            'type:util',
+          ],
+        },
+        {
+          sourceTag: 'type:server',
+          onlyDependOnLibsWithTags: [
+            'type:server',
+            'type:db',
+            'type:contracts',
+            'type:domain',
+            'type:util',
+          ],
+        },
         { sourceTag: 'type:db', onlyDependOnLibsWithTags: ['type:db', 'type:util'] },
-        { sourceTag: 'type:contracts', onlyDependOnLibsWithTags: ['type:contracts', 'type:domain', 'type:util'] },
-        { sourceTag: 'type:domain', onlyDependOnLibsWithTags: ['type:domain', 'type:util'], allowedExternalImports: domainExternals },
+        {
+          sourceTag: 'type:contracts',
+          onlyDependOnLibsWithTags: ['type:contracts', 'type:domain', 'type:util'],
+        },
+        {
+          sourceTag: 'type:domain',
+          onlyDependOnLibsWithTags: ['type:domain', 'type:util'],
+          allowedExternalImports: domainExternals,
+        },
         { sourceTag: 'type:util', onlyDependOnLibsWithTags: ['type:util'] },
         // platform: browser code never reaches server packages; neutral code neither side's
-        { sourceTag: 'platform:web', onlyDependOnLibsWithTags: ['platform:web', 'platform:neutral'], bannedExternalImports: nodeOnly },
-        { sourceTag: 'platform:node', onlyDependOnLibsWithTags: ['platform:node', 'platform:neutral'], bannedExternalImports: ['@angular/*'] },
-        { sourceTag: 'platform:neutral', onlyDependOnLibsWithTags: ['platform:neutral'], bannedExternalImports: [...neutralBanned, '@angular/*'] },
+        {
+          sourceTag: 'platform:web',
+          onlyDependOnLibsWithTags: ['platform:web', 'platform:neutral'],
+          bannedExternalImports: nodeOnly,
+        },
+        {
+          sourceTag: 'platform:node',
+          onlyDependOnLibsWithTags: ['platform:node', 'platform:neutral'],
+          bannedExternalImports: ['@angular/*'],
+        },
+        {
+          sourceTag: 'platform:neutral',
+          onlyDependOnLibsWithTags: ['platform:neutral'],
+          bannedExternalImports: [...neutralBanned, '@angular/*'],
+        },
       ],
     },
   ];
@@ -46,7 +122,15 @@ const testFiles = ['**/*.test.ts', '**/*.spec.ts', '**/vitest.config.ts'];
 
 export default tseslint.config(
   {
-    ignores: ['**/node_modules', '**/dist', '**/tmp', '**/.angular', '**/.nx', '.local', 'tests/output'],
+    ignores: [
+      '**/node_modules',
+      '**/dist',
+      '**/tmp',
+      '**/.angular',
+      '**/.nx',
+      '.local',
+      'tests/output',
+    ],
   },
   ...nx.configs['flat/base'],
   ...nx.configs['flat/typescript'],
@@ -55,7 +139,10 @@ export default tseslint.config(
     files: ['**/*.ts', '**/*.mjs', '**/*.js'],
     rules: {
       '@nx/enforce-module-boundaries': boundaries({ tests: false }),
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
     },
   },
   {
@@ -78,8 +165,14 @@ export default tseslint.config(
     extends: [...angular.configs.tsRecommended],
     processor: angular.processInlineTemplates,
     rules: {
-      '@angular-eslint/directive-selector': ['error', { type: 'attribute', prefix: 'lw', style: 'camelCase' }],
-      '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'lw', style: 'kebab-case' }],
+      '@angular-eslint/directive-selector': [
+        'error',
+        { type: 'attribute', prefix: 'lw', style: 'camelCase' },
+      ],
+      '@angular-eslint/component-selector': [
+        'error',
+        { type: 'element', prefix: 'lw', style: 'kebab-case' },
+      ],
     },
   },
   {

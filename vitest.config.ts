@@ -4,5 +4,11 @@ import { defineConfig } from 'vitest/config';
 // Tests that need the running stack live under tests/ (see tests/vitest.config.ts).
 // The web app's component tests run through Angular's unit-test builder (nx run web:test).
 export default defineConfig({
-  test: { projects: ['libs/**/vitest.config.ts', 'apps/api/vitest.config.ts', 'apps/worker/vitest.config.ts'] },
+  test: {
+    projects: [
+      'libs/**/vitest.config.ts',
+      'apps/api/vitest.config.ts',
+      'apps/worker/vitest.config.ts',
+    ],
+  },
 });

@@ -6,5 +6,11 @@ import { runStep } from './lib/processes.mjs';
 
 const cfg = loadConfig(process.env.LW_PROFILE === 'test' ? 'test' : 'dev');
 startPostgres(cfg);
-const { ok } = runStep(cfg, 'npx', ['tsx', '--tsconfig', 'tsconfig.base.json', 'docker-free-dev/lib/db-tasks.ts', 'migrate']);
+const { ok } = runStep(cfg, 'npx', [
+  'tsx',
+  '--tsconfig',
+  'tsconfig.base.json',
+  'docker-free-dev/lib/db-tasks.ts',
+  'migrate',
+]);
 process.exit(ok ? 0 : 1);

@@ -6,13 +6,18 @@ import { buildApps, startApps, startServices, stopAll } from './lib/stack.mjs';
 import scenario from './demo/demo-scenario.json' with { type: 'json' };
 
 const signInLines = (s) =>
-  s.people.map((p) => `  ${p.email.padEnd(34)} ${p.memberships.map((m) => `${m.role} at ${s.tenants.find((t) => t.slug === m.tenant).name}`).join('; ')}`);
+  s.people.map(
+    (p) =>
+      `  ${p.email.padEnd(34)} ${p.memberships.map((m) => `${m.role} at ${s.tenants.find((t) => t.slug === m.tenant).name}`).join('; ')}`,
+  );
 
 const cfg = loadConfig('dev');
 const log = (line) => console.log(`[latchwork] ${line}`);
 const lock = takeLock(cfg);
 if (!lock.ok) {
-  console.error(`Latchwork is already running (process ${lock.pid}). Open ${cfg.env.APP_URL} or stop it with Ctrl-C in its terminal or \`npm run stop\`.`);
+  console.error(
+    `Latchwork is already running (process ${lock.pid}). Open ${cfg.env.APP_URL} or stop it with Ctrl-C in its terminal or \`npm run stop\`.`,
+  );
   process.exit(1);
 }
 

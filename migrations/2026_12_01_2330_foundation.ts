@@ -52,7 +52,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       ip_address text,
       created_at timestamptz not null default now()
     )`.execute(db);
-  await sql`create index audit_log_tenant_time_idx on audit_log (tenant_id, created_at desc)`.execute(db);
+  await sql`create index audit_log_tenant_time_idx on audit_log (tenant_id, created_at desc)`.execute(
+    db,
+  );
 
   await sql`
     create table file (
@@ -83,7 +85,9 @@ export async function up(db: Kysely<any>): Promise<void> {
       sent_at timestamptz,
       unique (tenant_id, id)
     )`.execute(db);
-  await sql`create index email_log_tenant_time_idx on email_log (tenant_id, created_at desc)`.execute(db);
+  await sql`create index email_log_tenant_time_idx on email_log (tenant_id, created_at desc)`.execute(
+    db,
+  );
 
   for (const table of ['membership', 'audit_log', 'file', 'email_log']) {
     await sql`alter table ${sql.table(table)} enable row level security`.execute(db);
@@ -92,7 +96,9 @@ export async function up(db: Kysely<any>): Promise<void> {
     await sql`
       create policy tenant_isolation on ${sql.table(table)}
       using (tenant_id = nullif(current_setting('app.tenant_id', true), '')::uuid)
-      with check (tenant_id = nullif(current_setting('app.tenant_id', true), '')::uuid)`.execute(db);
+      with check (tenant_id = nullif(current_setting('app.tenant_id', true), '')::uuid)`.execute(
+      db,
+    );
   }
 
   await sql`grant select, insert, update on tenant, app_user to latchwork_app`.execute(db);

@@ -19,7 +19,9 @@ function record(name, counts) {
   totals.passed += counts.passed;
   totals.failed += counts.failed;
   totals.skipped += counts.skipped;
-  log(`${name}: ${counts.passed} passed, ${counts.failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ''}`);
+  log(
+    `${name}: ${counts.passed} passed, ${counts.failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ''}`,
+  );
 }
 
 /** A check that is one test: it passes or fails as a whole (format, lint, types, build). */
@@ -34,14 +36,22 @@ function vitest(name, args) {
   log(`${name} …`);
   const report = path.join(outputDir, `${name}.json`);
   rmSync(report, { force: true });
-  runStep(cfg, 'npx', ['vitest', 'run', ...args, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]);
+  runStep(cfg, 'npx', [
+    'vitest',
+    'run',
+    ...args,
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile.json=${report}`,
+  ]);
   record(name, countsFromVitestJson(report));
 }
 
 function freshDataDir() {
   mkdirSync(cfg.dataDir, { recursive: true });
   for (const entry of readdirSync(cfg.dataDir)) {
-    if (entry !== 'lock.pid') rmSync(path.join(cfg.dataDir, entry), { recursive: true, force: true });
+    if (entry !== 'lock.pid')
+      rmSync(path.join(cfg.dataDir, entry), { recursive: true, force: true });
   }
 }
 
@@ -75,7 +85,9 @@ try {
   vitest('unit', []);
 
   log('web component tests …');
-  const web = runStep(cfg, 'npx', ['nx', 'run', 'web:test', '--output-style=static'], { capture: true });
+  const web = runStep(cfg, 'npx', ['nx', 'run', 'web:test', '--output-style=static'], {
+    capture: true,
+  });
   process.stdout.write(web.stdout + web.stderr);
   record('web', countsFromVitestText(web.stdout + web.stderr, web.ok));
 
@@ -90,7 +102,16 @@ try {
   record('build', { passed: built ? 1 : 0, failed: built ? 0 : 1, skipped: 0 });
   if (built) {
     await startApps(cfg);
-    vitest('integration', ['--config', 'tests/vitest.config.ts', '--project', 'api', '--project', 'worker', '--project', 'fakes']);
+    vitest('integration', [
+      '--config',
+      'tests/vitest.config.ts',
+      '--project',
+      'api',
+      '--project',
+      'worker',
+      '--project',
+      'fakes',
+    ]);
     vitest('e2e', ['--config', 'tests/vitest.config.ts', '--project', 'e2e']);
   }
 } catch (err) {

@@ -6,7 +6,9 @@ export function countsFromVitestJson(file) {
   if (!existsSync(file)) return { passed: 0, failed: 1, skipped: 0 };
   const r = JSON.parse(readFileSync(file, 'utf8'));
   // A file that failed to load has no tests but must still fail the run.
-  const brokenFiles = (r.testResults ?? []).filter((f) => f.status === 'failed' && f.assertionResults.length === 0).length;
+  const brokenFiles = (r.testResults ?? []).filter(
+    (f) => f.status === 'failed' && f.assertionResults.length === 0,
+  ).length;
   return {
     passed: r.numPassedTests,
     failed: r.numFailedTests + brokenFiles,
@@ -20,7 +22,11 @@ export function countsFromVitestText(text, exitedOk) {
   const plain = text.replace(/\u001b\[[0-9;]*m/g, '');
   const line = [...plain.matchAll(/^\s*Tests\s+(.+)$/gm)].pop()?.[1] ?? '';
   const count = (word) => Number(line.match(new RegExp(`(\\d+) ${word}`))?.[1] ?? 0);
-  const counts = { passed: count('passed'), failed: count('failed'), skipped: count('skipped') + count('todo') };
+  const counts = {
+    passed: count('passed'),
+    failed: count('failed'),
+    skipped: count('skipped') + count('todo'),
+  };
   if (!exitedOk && counts.failed === 0) counts.failed = 1;
   return counts;
 }

@@ -1,3 +1,5 @@
 import { defineProject } from 'vitest/config';
 
-export default defineProject({ test: { name: 'api', include: ['src/**/*.test.ts'], environment: 'node' } });
+export default defineProject({
+  test: { name: 'api', include: ['src/**/*.test.ts'], environment: 'node' },
+});

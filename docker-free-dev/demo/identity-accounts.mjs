@@ -5,7 +5,10 @@ import scenario from './demo-scenario.json' with { type: 'json' };
 
 /** @param {{ env: Record<string, string> }} cfg */
 export async function ensureDemoAccounts(cfg) {
-  const store = openAccounts({ databaseUrl: cfg.env.IDP_DATABASE_URL, dataDir: cfg.env.LW_DATA_DIR });
+  const store = openAccounts({
+    databaseUrl: cfg.env.IDP_DATABASE_URL,
+    dataDir: cfg.env.LW_DATA_DIR,
+  });
   let created = 0;
   try {
     for (const person of scenario.people) {

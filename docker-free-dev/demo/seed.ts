@@ -13,12 +13,19 @@ export async function seedDemo(db: Kysely<Database>): Promise<string> {
     tenantIds.set(t.slug, row.id);
   }
   for (const person of scenario.people) {
-    const user = await db.insertInto('appUser').values({ email: person.email, name: person.name }).returning('id').executeTakeFirstOrThrow();
+    const user = await db
+      .insertInto('appUser')
+      .values({ email: person.email, name: person.name })
+      .returning('id')
+      .executeTakeFirstOrThrow();
     for (const m of person.memberships) {
       const tenantId = tenantIds.get(m.tenant);
       if (!tenantId) throw new Error(`unknown demo tenant ${m.tenant}`);
       await withTenant(db, { tenantId }, (tx) =>
-        tx.insertInto('membership').values({ tenantId, userId: user.id, role: m.role as Role }).execute(),
+        tx
+          .insertInto('membership')
+          .values({ tenantId, userId: user.id, role: m.role as Role })
+          .execute(),
       );
     }
   }

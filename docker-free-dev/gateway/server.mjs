@@ -9,7 +9,8 @@ import { existsSync } from 'node:fs';
 
 /** @param {{ port: number, webRoot: string, apiUrls: string[] }} options */
 export function start({ port, webRoot, apiUrls }) {
-  if (!existsSync(path.join(webRoot, 'index.html'))) throw new Error(`No built web app in ${webRoot}; run the build first`);
+  if (!existsSync(path.join(webRoot, 'index.html')))
+    throw new Error(`No built web app in ${webRoot}; run the build first`);
   const app = express();
   app.disable('x-powered-by');
   let next = 0;
@@ -43,7 +44,9 @@ export function start({ port, webRoot, apiUrls }) {
   );
   // Hashed bundles never change; index.html must always be fetched fresh.
   app.use(express.static(webRoot, { index: false, immutable: true, maxAge: '365d' }));
-  app.get('/{*path}', (_req, res) => res.set('Cache-Control', 'no-cache').sendFile(path.join(webRoot, 'index.html')));
+  app.get('/{*path}', (_req, res) =>
+    res.set('Cache-Control', 'no-cache').sendFile(path.join(webRoot, 'index.html')),
+  );
   return new Promise((resolve) => {
     const server = app.listen(port, '127.0.0.1', () => resolve(server));
   });
@@ -51,7 +54,9 @@ export function start({ port, webRoot, apiUrls }) {
 
 if (import.meta.url === `file://${process.argv[1]}`) {
   const port = Number(process.env.APP_PORT ?? 4200);
-  const apiUrls = (process.env.API_URLS ?? process.env.API_URL ?? 'http://127.0.0.1:3333').split(',');
+  const apiUrls = (process.env.API_URLS ?? process.env.API_URL ?? 'http://127.0.0.1:3333').split(
+    ',',
+  );
   const webRoot = path.resolve(process.env.WEB_ROOT ?? 'dist/apps/web/browser');
   const server = await start({ port, webRoot, apiUrls });
   console.log(`gateway listening on http://127.0.0.1:${port} → ${apiUrls.join(', ')}`);

@@ -7,13 +7,40 @@ import { fileURLToPath } from 'node:url';
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
 const DEFAULT_PORTS = {
-  dev: { app: 4200, api: 3333, idp: 3400, s3: 3410, smtp: 3425, mailUi: 3426, payments: 3430, pg: 54329, redis: 63799 },
-  test: { app: 14200, api: 13333, idp: 13400, s3: 13410, smtp: 13425, mailUi: 13426, payments: 13430, pg: 54339, redis: 63809 },
+  dev: {
+    app: 4200,
+    api: 3333,
+    idp: 3400,
+    s3: 3410,
+    smtp: 3425,
+    mailUi: 3426,
+    payments: 3430,
+    pg: 54329,
+    redis: 63799,
+  },
+  test: {
+    app: 14200,
+    api: 13333,
+    idp: 13400,
+    s3: 13410,
+    smtp: 13425,
+    mailUi: 13426,
+    payments: 13430,
+    pg: 54339,
+    redis: 63809,
+  },
 };
 
 const PORT_VARIABLES = {
-  app: 'APP_PORT', api: 'API_PORT', idp: 'IDP_PORT', s3: 'S3_PORT', smtp: 'SMTP_PORT',
-  mailUi: 'MAIL_UI_PORT', payments: 'PAYMENTS_PORT', pg: 'PG_PORT', redis: 'REDIS_PORT',
+  app: 'APP_PORT',
+  api: 'API_PORT',
+  idp: 'IDP_PORT',
+  s3: 'S3_PORT',
+  smtp: 'SMTP_PORT',
+  mailUi: 'MAIL_UI_PORT',
+  payments: 'PAYMENTS_PORT',
+  pg: 'PG_PORT',
+  redis: 'REDIS_PORT',
 };
 
 // Local-only credentials for private clusters bound to 127.0.0.1; never used in production.

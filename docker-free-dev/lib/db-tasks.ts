@@ -17,7 +17,10 @@ async function main(task: string) {
       if (error) throw error;
       if (!results?.length) console.log('migrations: already up to date');
     } else if (task === 'seed-if-empty' || task === 'seed') {
-      const tenants = await db.selectFrom('tenant').select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow();
+      const tenants = await db
+        .selectFrom('tenant')
+        .select((eb) => eb.fn.countAll<string>().as('n'))
+        .executeTakeFirstOrThrow();
       if (task === 'seed-if-empty' && Number(tenants.n) > 0) {
         console.log('demo data: already loaded');
       } else {

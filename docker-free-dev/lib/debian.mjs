@@ -5,7 +5,10 @@ import { execFileSync } from 'node:child_process';
 
 function installed(pkg) {
   try {
-    const out = execFileSync('dpkg-query', ['-W', '-f=${Status}', pkg], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'] });
+    const out = execFileSync('dpkg-query', ['-W', '-f=${Status}', pkg], {
+      encoding: 'utf8',
+      stdio: ['ignore', 'pipe', 'ignore'],
+    });
     return out.includes('install ok installed');
   } catch {
     return false;
@@ -17,7 +20,9 @@ export function ensureDebianPackages(packages, log = console.log) {
   const missing = packages.filter((p) => !installed(p));
   if (missing.length === 0) return;
   if (process.getuid?.() !== 0) {
-    throw new Error(`Missing Debian packages: ${missing.join(' ')}. Install them with: sudo apt-get install -y ${missing.join(' ')}`);
+    throw new Error(
+      `Missing Debian packages: ${missing.join(' ')}. Install them with: sudo apt-get install -y ${missing.join(' ')}`,
+    );
   }
   log(`Installing Debian packages: ${missing.join(' ')} …`);
   const policy = '/usr/sbin/policy-rc.d';
@@ -26,7 +31,10 @@ export function ensureDebianPackages(packages, log = console.log) {
   try {
     const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
     execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-    execFileSync('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...missing], { stdio: 'inherit', env });
+    execFileSync('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...missing], {
+      stdio: 'inherit',
+      env,
+    });
   } finally {
     if (ownPolicy) unlinkSync(policy);
   }

@@ -1,7 +1,15 @@
 // Child processes started by `npm start` / `npm test`: each logs to a file in the data
 // folder and leaves a pid file, so `npm run stop` can end exactly what was started.
 import { spawn, spawnSync } from 'node:child_process';
-import { createWriteStream, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
+import {
+  createWriteStream,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  writeFileSync,
+  existsSync,
+} from 'node:fs';
 import path from 'node:path';
 import { ROOT } from './config.mjs';
 
@@ -29,12 +37,24 @@ export function startProcess(cfg, name, command, args, extraEnv = {}) {
 export function runStep(cfg, command, args, options = {}) {
   const result = spawnSync(command, args, {
     cwd: ROOT,
-    env: { ...process.env, ...cfg.env, NX_DAEMON: 'false', NX_NO_CLOUD: 'true', NG_CLI_ANALYTICS: 'false', ...options.env },
+    env: {
+      ...process.env,
+      ...cfg.env,
+      NX_DAEMON: 'false',
+      NX_NO_CLOUD: 'true',
+      NG_CLI_ANALYTICS: 'false',
+      ...options.env,
+    },
     stdio: options.capture ? ['ignore', 'pipe', 'pipe'] : 'inherit',
     encoding: 'utf8',
     maxBuffer: 64 * 1024 * 1024,
   });
-  return { ok: result.status === 0, status: result.status, stdout: result.stdout ?? '', stderr: result.stderr ?? '' };
+  return {
+    ok: result.status === 0,
+    status: result.status,
+    stdout: result.stdout ?? '',
+    stderr: result.stderr ?? '',
+  };
 }
 
 const alive = (pid) => {
@@ -51,10 +71,14 @@ export async function stopProcesses(cfg, { graceMs = 25_000 } = {}) {
   if (!existsSync(runDir(cfg))) return;
   const pids = readdirSync(runDir(cfg))
     .filter((f) => f.endsWith('.pid'))
-    .map((f) => ({ file: path.join(runDir(cfg), f), pid: Number(readFileSync(path.join(runDir(cfg), f), 'utf8')) }));
+    .map((f) => ({
+      file: path.join(runDir(cfg), f),
+      pid: Number(readFileSync(path.join(runDir(cfg), f), 'utf8')),
+    }));
   for (const { pid } of pids) if (alive(pid)) process.kill(pid, 'SIGTERM');
   const deadline = Date.now() + graceMs;
-  while (pids.some(({ pid }) => alive(pid)) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+  while (pids.some(({ pid }) => alive(pid)) && Date.now() < deadline)
+    await new Promise((r) => setTimeout(r, 100));
   for (const { pid, file } of pids) {
     if (alive(pid)) process.kill(pid, 'SIGKILL');
     rmSync(file, { force: true });

@@ -12,7 +12,12 @@ function paths(cfg) {
 
 function ping(cfg) {
   try {
-    return execFileSync('redis-cli', ['-h', '127.0.0.1', '-p', String(cfg.ports.redis), 'ping'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'ignore'] }).trim() === 'PONG';
+    return (
+      execFileSync('redis-cli', ['-h', '127.0.0.1', '-p', String(cfg.ports.redis), 'ping'], {
+        encoding: 'utf8',
+        stdio: ['ignore', 'pipe', 'ignore'],
+      }).trim() === 'PONG'
+    );
   } catch {
     return false;
   }
@@ -23,11 +28,32 @@ export function startRedis(cfg, log = console.log) {
   const p = paths(cfg);
   mkdirSync(p.dir, { recursive: true });
   if (ping(cfg)) return;
-  execFileSync('redis-server', [
-    '--bind', '127.0.0.1', '--port', String(cfg.ports.redis), '--dir', p.dir,
-    '--appendonly', 'yes', '--maxmemory-policy', 'noeviction', '--save', '',
-    '--daemonize', 'yes', '--pidfile', p.pid, '--logfile', p.log, '--protected-mode', 'yes',
-  ], { stdio: 'inherit' });
+  execFileSync(
+    'redis-server',
+    [
+      '--bind',
+      '127.0.0.1',
+      '--port',
+      String(cfg.ports.redis),
+      '--dir',
+      p.dir,
+      '--appendonly',
+      'yes',
+      '--maxmemory-policy',
+      'noeviction',
+      '--save',
+      '',
+      '--daemonize',
+      'yes',
+      '--pidfile',
+      p.pid,
+      '--logfile',
+      p.log,
+      '--protected-mode',
+      'yes',
+    ],
+    { stdio: 'inherit' },
+  );
   for (let i = 0; i < 100 && !ping(cfg); i++) execFileSync('sleep', ['0.05']);
   if (!ping(cfg)) throw new Error(`Redis did not start; see ${p.log}`);
 }
@@ -36,7 +62,9 @@ export function stopRedis(cfg) {
   if (!ping(cfg)) return;
   // SHUTDOWN rewrites nothing by itself with --save ''; the AOF is already on disk.
   try {
-    execFileSync('redis-cli', ['-h', '127.0.0.1', '-p', String(cfg.ports.redis), 'shutdown'], { stdio: 'ignore' });
+    execFileSync('redis-cli', ['-h', '127.0.0.1', '-p', String(cfg.ports.redis), 'shutdown'], {
+      stdio: 'ignore',
+    });
   } catch {
     // redis-cli reports the dropped connection as an error once the server has gone.
   }

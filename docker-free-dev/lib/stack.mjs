@@ -17,7 +17,8 @@ function fakeReadyUrls(cfg) {
   };
 }
 
-const tsx = (cfg, args) => runStep(cfg, 'npx', ['tsx', '--tsconfig', 'tsconfig.base.json', ...args]);
+const tsx = (cfg, args) =>
+  runStep(cfg, 'npx', ['tsx', '--tsconfig', 'tsconfig.base.json', ...args]);
 
 /** PostgreSQL, Redis, the four fakes, migrations and (if empty) the demo data. */
 export async function startServices(cfg, log) {
@@ -25,25 +26,41 @@ export async function startServices(cfg, log) {
   startPostgres(cfg, log);
   startRedis(cfg, log);
   log('Starting the local fakes …');
-  for (const fake of FAKES) startProcess(cfg, fake, process.execPath, [path.join('docker-free-dev', fake, 'main.mjs')]);
+  for (const fake of FAKES)
+    startProcess(cfg, fake, process.execPath, [path.join('docker-free-dev', fake, 'main.mjs')]);
   await Promise.all(Object.values(fakeReadyUrls(cfg)).map((url) => waitForUrl(url)));
   log('Migrating the database …');
-  if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'migrate']).ok) throw new Error('migration failed');
-  if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'seed-if-empty']).ok) throw new Error('loading the demo data failed');
+  if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'migrate']).ok)
+    throw new Error('migration failed');
+  if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'seed-if-empty']).ok)
+    throw new Error('loading the demo data failed');
   const accounts = await ensureDemoAccounts(cfg);
   if (accounts) log(`Demo sign-ins created at the identity provider: ${accounts}`);
 }
 
 export function buildApps(cfg, log) {
   log('Building the web app, API and worker …');
-  const built = runStep(cfg, 'npx', ['nx', 'run-many', '-t', 'build', '-p', 'web', 'api', 'worker', '--output-style=static']);
+  const built = runStep(cfg, 'npx', [
+    'nx',
+    'run-many',
+    '-t',
+    'build',
+    '-p',
+    'web',
+    'api',
+    'worker',
+    '--output-style=static',
+  ]);
   if (!built.ok) throw new Error('build failed');
 }
 
 /** The API, the worker and the gateway, from the built bundles. */
 export async function startApps(cfg) {
   startProcess(cfg, 'api', process.execPath, ['--enable-source-maps', 'dist/apps/api/main.cjs']);
-  startProcess(cfg, 'worker', process.execPath, ['--enable-source-maps', 'dist/apps/worker/main.cjs']);
+  startProcess(cfg, 'worker', process.execPath, [
+    '--enable-source-maps',
+    'dist/apps/worker/main.cjs',
+  ]);
   startProcess(cfg, 'gateway', process.execPath, ['docker-free-dev/gateway/server.mjs']);
   await waitForUrl(`${cfg.env.API_URL}/api/v1/openapi.json`, { okOnly: true });
   await waitForUrl(`${cfg.env.APP_URL}/`, { okOnly: true });

@@ -18,7 +18,11 @@ describe('one error shape for every error', () => {
   });
 
   it('answers malformed JSON with 400', async () => {
-    const res = await request(app).post('/api/v1/health').set('Content-Type', 'application/json').send('{"outline": [1, 2,').expect(400);
+    const res = await request(app)
+      .post('/api/v1/health')
+      .set('Content-Type', 'application/json')
+      .send('{"outline": [1, 2,')
+      .expect(400);
     expect(res.body.error.code).toBe('malformed_json');
   });
 

@@ -19,7 +19,11 @@ describe('GET /api/v1/health', () => {
 
   it('reports a dependency that cannot be reached as down, and the whole as degraded (503)', async () => {
     // A Redis client aimed at a port where nothing listens (9 is the discard port, unused here).
-    const deadRedis = new Redis('redis://127.0.0.1:9', { maxRetriesPerRequest: 0, lazyConnect: true, retryStrategy: () => null });
+    const deadRedis = new Redis('redis://127.0.0.1:9', {
+      maxRetriesPerRequest: 0,
+      lazyConnect: true,
+      retryStrategy: () => null,
+    });
     const degraded = createApp({ ...deps, redis: deadRedis });
     const res = await request(degraded).get('/api/v1/health').expect(503);
     expect(res.body.status).toBe('degraded');
@@ -30,7 +34,9 @@ describe('GET /api/v1/health', () => {
   });
 
   it('echoes a request id header, or makes one', async () => {
-    const given = await request(app).get('/api/v1/openapi.json').set('X-Request-Id', 'trace-abc-123');
+    const given = await request(app)
+      .get('/api/v1/openapi.json')
+      .set('X-Request-Id', 'trace-abc-123');
     expect(given.headers['x-request-id']).toBe('trace-abc-123');
     const made = await request(app).get('/api/v1/openapi.json');
     expect(made.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);

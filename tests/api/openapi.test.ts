@@ -15,14 +15,20 @@ describe('the OpenAPI document', () => {
     expect(result.valid).toBe(true);
     expect(res.body.openapi).toBe('3.1.0');
     expect(Object.keys(res.body.paths)).toContain('/health');
-    expect(res.body.paths['/health'].get.responses['200'].content['application/json'].schema.properties.checks).toBeTruthy();
+    expect(
+      res.body.paths['/health'].get.responses['200'].content['application/json'].schema.properties
+        .checks,
+    ).toBeTruthy();
   });
 
   it('has a browsable page served from the app itself', async () => {
     const page = await request(app).get('/api/v1/docs/').expect(200);
     expect(page.text).toContain('swagger-ui-bundle.js');
     expect(page.text).not.toMatch(/https?:\/\//);
-    await request(app).get('/api/v1/docs/swagger-ui-bundle.js').expect(200).expect('Content-Type', /javascript/);
+    await request(app)
+      .get('/api/v1/docs/swagger-ui-bundle.js')
+      .expect(200)
+      .expect('Content-Type', /javascript/);
     await request(app).get('/api/v1/docs/start.js').expect(200);
   });
 });

@@ -18,7 +18,14 @@ interface Route {
 /** Every route of the Express router stack, nested routers included. */
 function routesOf(express: Express): Route[] {
   const found = new Map<string, Route>();
-  const walk = (stack: { route?: { path: string; methods: Record<string, boolean> }; handle: { stack?: unknown[] }; rawPath?: string }[], prefix: string) => {
+  const walk = (
+    stack: {
+      route?: { path: string; methods: Record<string, boolean> };
+      handle: { stack?: unknown[] };
+      rawPath?: string;
+    }[],
+    prefix: string,
+  ) => {
     for (const layer of stack) {
       if (layer.route) {
         for (const method of Object.keys(layer.route.methods)) {
@@ -26,7 +33,11 @@ function routesOf(express: Express): Route[] {
           found.set(`${route.method} ${route.path}`, route);
         }
       } else if (layer.handle.stack) {
-        walk(layer.handle.stack as never, prefix + (typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? layer.rawPath : ''));
+        walk(
+          layer.handle.stack as never,
+          prefix +
+            (typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? layer.rawPath : ''),
+        );
       }
     }
   };
@@ -37,9 +48,18 @@ function routesOf(express: Express): Route[] {
 /** A valid body for each state-changing route, so a refusal cannot hide behind a 400. */
 const SAMPLE_BODIES: Record<string, () => object> = {
   'POST /api/v1/auth/logout': () => ({}),
-  'POST /api/v1/auth/provider-events': () => ({ type: 'sign-in-failed', email: 'nobody@nowhere.test', ipAddress: null, at: new Date().toISOString() }),
+  'POST /api/v1/auth/provider-events': () => ({
+    type: 'sign-in-failed',
+    email: 'nobody@nowhere.test',
+    ipAddress: null,
+    at: new Date().toISOString(),
+  }),
   'PUT /api/v1/me/active-tenant': () => ({ tenantId: ids.tenantA }),
-  'POST /api/v1/members/invitations': () => ({ email: `walker-${Date.now()}-${Math.random().toString(36).slice(2)}@wexbridge-tiling.test`, name: 'Walker Target', role: 'installer' }),
+  'POST /api/v1/members/invitations': () => ({
+    email: `walker-${Date.now()}-${Math.random().toString(36).slice(2)}@wexbridge-tiling.test`,
+    name: 'Walker Target',
+    role: 'installer',
+  }),
   'POST /api/v1/members/:userId/invitation': () => ({}),
   'PATCH /api/v1/members/:userId': () => ({ role: 'stores' }),
   'DELETE /api/v1/members/:userId': () => ({}),
@@ -51,6 +71,7 @@ let settingsA: object;
 let actorsA: { role: Role; userId: string }[];
 let ownerB: string;
 let nameA = '';
+const ownerA = () => actorsA.find((a) => a.role === 'owner')?.userId ?? '';
 
 beforeAll(async () => {
   const { tenant, user } = await demoIds(deps.db);
@@ -68,10 +89,25 @@ beforeAll(async () => {
   ];
   // A member of firm A who has not joined: the target of member routes, so the walk
   // removes or changes nobody the other tests rely on.
-  const target = await deps.db.insertInto('appUser').values({ email: `walker-target-${Date.now()}@wexbridge-tiling.test`, name: 'Walker Target' }).returning('id').executeTakeFirstOrThrow();
+  const target = await deps.db
+    .insertInto('appUser')
+    .values({ email: `walker-target-${Date.now()}@wexbridge-tiling.test`, name: 'Walker Target' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   ids.targetUser = target.id;
-  await withTenant(deps.db, { tenantId: ids.tenantA }, (tx) => tx.insertInto('membership').values({ tenantId: ids.tenantA, userId: target.id, role: 'installer', invitedBy: actorsA[0]!.userId, joinedAt: null }).execute());
-  const owner = await sessionFor(deps.db, actorsA[0]!.userId, ids.tenantA);
+  await withTenant(deps.db, { tenantId: ids.tenantA }, (tx) =>
+    tx
+      .insertInto('membership')
+      .values({
+        tenantId: ids.tenantA,
+        userId: target.id,
+        role: 'installer',
+        invitedBy: ownerA(),
+        joinedAt: null,
+      })
+      .execute(),
+  );
+  const owner = await sessionFor(deps.db, ownerA(), ids.tenantA);
   settingsA = (await request(app).get('/api/v1/settings').set('Cookie', owner.cookie)).body;
 });
 
@@ -94,9 +130,19 @@ describe('the route walker', () => {
     expect(routes.length).toBeGreaterThan(10);
     for (const r of routes) {
       const permission = access.get(`${r.method} ${r.path}`);
-      expect(permission, `${r.method} ${r.path} has no entry in the permission table`).toBeDefined();
-      expect(permission === 'public' || permission === 'signed-in' || isPermission(permission!), `${r.method} ${r.path}: ${permission}`).toBe(true);
-      if (r.method !== 'GET') expect(SAMPLE_BODIES[`${r.method} ${r.path}`], `${r.method} ${r.path} needs a sample body`).toBeDefined();
+      expect(
+        permission,
+        `${r.method} ${r.path} has no entry in the permission table`,
+      ).toBeDefined();
+      expect(
+        permission === 'public' || permission === 'signed-in' || isPermission(permission ?? ''),
+        `${r.method} ${r.path}: ${permission}`,
+      ).toBe(true);
+      if (r.method !== 'GET')
+        expect(
+          SAMPLE_BODIES[`${r.method} ${r.path}`],
+          `${r.method} ${r.path} needs a sample body`,
+        ).toBeDefined();
     }
   });
 
@@ -106,30 +152,40 @@ describe('the route walker', () => {
     let tried = 0;
     // The owner goes last: its calls change or remove the target member.
     for (const route of routesOf(app)) {
-      const permission = access.get(`${route.method} ${route.path}`)!;
+      const permission = access.get(`${route.method} ${route.path}`) ?? 'undeclared';
       const label = `${route.method} ${route.path}`;
       const anonymous = await call(route);
       tried++;
-      if (permission !== 'public' && anonymous.status !== 401) unexpected.push(`${label} anonymous → ${anonymous.status}, expected 401`);
+      if (permission !== 'public' && anonymous.status !== 401)
+        unexpected.push(`${label} anonymous → ${anonymous.status}, expected 401`);
       if (anonymous.status >= 500) unexpected.push(`${label} anonymous → ${anonymous.status}`);
 
       for (const actor of [...actorsA].reverse()) {
         const res = await call(route, { userId: actor.userId, tenantId: ids.tenantA });
         tried++;
-        const allowed = permission === 'public' || permission === 'signed-in' || roleHas(actor.role, permission as never);
-        if (allowed && (res.status === 401 || res.status === 403 || res.status >= 500)) unexpected.push(`${label} as ${actor.role} → ${res.status}, expected access`);
-        if (!allowed && res.status !== 403) unexpected.push(`${label} as ${actor.role} → ${res.status}, expected 403`);
+        const allowed =
+          permission === 'public' ||
+          permission === 'signed-in' ||
+          roleHas(actor.role, permission as never);
+        if (allowed && (res.status === 401 || res.status === 403 || res.status >= 500))
+          unexpected.push(`${label} as ${actor.role} → ${res.status}, expected access`);
+        if (!allowed && res.status !== 403)
+          unexpected.push(`${label} as ${actor.role} → ${res.status}, expected 403`);
       }
 
       // The owner of firm B holds every permission, in firm B: aimed at A's ids it must get 404,
       // and whatever it may read must hold nothing of firm A.
       const other = await call(route, { userId: ownerB, tenantId: ids.tenantB });
       tried++;
-      if (route.path.includes(':') && other.status !== 404) unexpected.push(`${label} as firm B at firm A's id → ${other.status}, expected 404`);
+      if (route.path.includes(':') && other.status !== 404)
+        unexpected.push(`${label} as firm B at firm A's id → ${other.status}, expected 404`);
       const body = JSON.stringify(other.body ?? '');
-      if (body.includes(ids.tenantA) || body.includes(ids.targetUser) || body.includes(nameA)) unexpected.push(`${label} as firm B leaks firm A's data`);
+      if (body.includes(ids.tenantA) || body.includes(ids.targetUser) || body.includes(nameA))
+        unexpected.push(`${label} as firm B leaks firm A's data`);
     }
-    console.log(`route walker: ${routesOf(app).length} routes × ${2 + actorsA.length} actors = ${tried} calls, ${unexpected.length} unexpected`);
+    console.log(
+      `route walker: ${routesOf(app).length} routes × ${2 + actorsA.length} actors = ${tried} calls, ${unexpected.length} unexpected`,
+    );
     expect(unexpected).toEqual([]);
   });
 

@@ -21,14 +21,39 @@ export interface TestSession {
  * browser tests go through the real sign-in). The cookie is signed the way express-session
  * signs it: `s:<sid>.<base64 HMAC-SHA256 without padding>`.
  */
-export async function sessionFor(db: Kysely<Database>, userId: string, tenantId: string): Promise<TestSession> {
+export async function sessionFor(
+  db: Kysely<Database>,
+  userId: string,
+  tenantId: string,
+): Promise<TestSession> {
   const sid = randomBytes(24).toString('base64url');
   const csrfToken = randomBytes(32).toString('base64url');
   const expire = new Date(Date.now() + 3600_000);
-  const sess = { cookie: { originalMaxAge: 3600_000, expires: expire.toISOString(), httpOnly: true, path: '/', sameSite: 'lax' }, userId, tenantId, csrfToken };
-  await db.insertInto('appSession').values({ sid, sess: JSON.stringify(sess), expire }).execute();
-  const signature = createHmac('sha256', env('SESSION_SECRET')).update(sid).digest('base64').replace(/=+$/, '');
-  return { sid, cookie: `lw.sid=${encodeURIComponent(`s:${sid}.${signature}`)}; XSRF-TOKEN=${csrfToken}`, csrfToken };
+  const sess = {
+    cookie: {
+      originalMaxAge: 3600_000,
+      expires: expire.toISOString(),
+      httpOnly: true,
+      path: '/',
+      sameSite: 'lax',
+    },
+    userId,
+    tenantId,
+    csrfToken,
+  };
+  await db
+    .insertInto('appSession')
+    .values({ sid, sess: JSON.stringify(sess), expire })
+    .execute();
+  const signature = createHmac('sha256', env('SESSION_SECRET'))
+    .update(sid)
+    .digest('base64')
+    .replace(/=+$/, '');
+  return {
+    sid,
+    cookie: `lw.sid=${encodeURIComponent(`s:${sid}.${signature}`)}; XSRF-TOKEN=${csrfToken}`,
+    csrfToken,
+  };
 }
 
 /** Users of the demo firms by e-mail, with their ids and their firms' ids. */

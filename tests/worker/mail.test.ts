@@ -2,7 +2,12 @@ import { Queue } from 'bullmq';
 import nodemailer from 'nodemailer';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb, withTenant } from '@latchwork/shared-db';
-import { createMailQueue, createRedisConnection, enqueueMail, type MailJob } from '@latchwork/shared-queues';
+import {
+  createMailQueue,
+  createRedisConnection,
+  enqueueMail,
+  type MailJob,
+} from '@latchwork/shared-queues';
 import { createLogger } from '@latchwork/shared-server-kit';
 import { startWorkers, stopWorkers } from '../../apps/worker/src/start-worker';
 
@@ -14,7 +19,11 @@ const env = (name: string) => {
 
 const db = createDb({ connectionString: env('DATABASE_URL'), max: 3 });
 const connection = createRedisConnection(env('REDIS_URL'));
-const mailer = nodemailer.createTransport({ host: env('SMTP_HOST'), port: Number(env('SMTP_PORT')), ignoreTLS: true });
+const mailer = nodemailer.createTransport({
+  host: env('SMTP_HOST'),
+  port: Number(env('SMTP_PORT')),
+  ignoreTLS: true,
+});
 const logger = createLogger('worker-test', 'silent');
 let queue: Queue<MailJob>;
 let tenantId: string;
@@ -36,11 +45,22 @@ async function until<T>(probe: () => Promise<T | undefined>, timeoutMs = 15_000)
 }
 
 const logRow = (id: string) =>
-  withTenant(db, { tenantId }, (tx) => tx.selectFrom('emailLog').selectAll().where('tenantId', '=', tenantId).where('id', '=', id).executeTakeFirstOrThrow());
+  withTenant(db, { tenantId }, (tx) =>
+    tx
+      .selectFrom('emailLog')
+      .selectAll()
+      .where('tenantId', '=', tenantId)
+      .where('id', '=', id)
+      .executeTakeFirstOrThrow(),
+  );
 
 beforeAll(async () => {
   queue = createMailQueue(createRedisConnection(env('REDIS_URL')));
-  const tenant = await db.selectFrom('tenant').select('id').where('slug', '=', 'kestrel-floorworks').executeTakeFirstOrThrow();
+  const tenant = await db
+    .selectFrom('tenant')
+    .select('id')
+    .where('slug', '=', 'kestrel-floorworks')
+    .executeTakeFirstOrThrow();
   tenantId = tenant.id;
 });
 
@@ -53,9 +73,25 @@ afterAll(async () => {
 
 describe('the mail job', () => {
   it('renders, sends through SMTP to the mail fake, and records the e-mail as sent', async () => {
-    const workers = startWorkers(connection, { db, mailer, from: 'Latchwork <no-reply@latchwork.test>' }, logger);
+    const workers = startWorkers(
+      connection,
+      { db, mailer, from: 'Latchwork <no-reply@latchwork.test>' },
+      logger,
+    );
     const to = `site-lead-${Date.now()}@wexbridge-motors.test`;
-    const id = await enqueueMail(db, queue, { tenantId }, { to, template: 'notice', params: { title: 'Survey booked', message: 'We will measure the garage on Tuesday at 9:00 <sharp>.' } });
+    const id = await enqueueMail(
+      db,
+      queue,
+      { tenantId },
+      {
+        to,
+        template: 'notice',
+        params: {
+          title: 'Survey booked',
+          message: 'We will measure the garage on Tuesday at 9:00 <sharp>.',
+        },
+      },
+    );
     const [message] = await until(async () => ((await inbox(to)).length ? inbox(to) : undefined));
     expect(message?.subject).toBe('Survey booked');
     expect(message?.text).toContain('Tuesday at 9:00 <sharp>');
@@ -69,10 +105,28 @@ describe('the mail job', () => {
   });
 
   it('finishes the job in hand when asked to stop (graceful shutdown)', async () => {
-    const slowMailer = { sendMail: async (m: object) => (await new Promise((r) => setTimeout(r, 800)), mailer.sendMail(m)) } as typeof mailer;
-    const workers = startWorkers(connection, { db, mailer: slowMailer, from: 'Latchwork <no-reply@latchwork.test>' }, logger);
+    const slowMailer = {
+      sendMail: async (m: object) => (
+        await new Promise((r) => setTimeout(r, 800)),
+        mailer.sendMail(m)
+      ),
+    } as typeof mailer;
+    const workers = startWorkers(
+      connection,
+      { db, mailer: slowMailer, from: 'Latchwork <no-reply@latchwork.test>' },
+      logger,
+    );
     const to = `graceful-${Date.now()}@wexbridge-motors.test`;
-    const id = await enqueueMail(db, queue, { tenantId }, { to, template: 'notice', params: { title: 'Tiles delivered', message: 'Leave the boxes in the room for 24 hours.' } });
+    const id = await enqueueMail(
+      db,
+      queue,
+      { tenantId },
+      {
+        to,
+        template: 'notice',
+        params: { title: 'Tiles delivered', message: 'Leave the boxes in the room for 24 hours.' },
+      },
+    );
     await until(async () => ((await queue.getJob(id))?.processedOn ? true : undefined));
     await stopWorkers(workers);
     expect((await logRow(id)).status).toBe('sent');
@@ -80,9 +134,26 @@ describe('the mail job', () => {
   });
 
   it('retries a failing send with backoff and records the failure', async () => {
-    const refusing = nodemailer.createTransport({ host: '127.0.0.1', port: 9, connectionTimeout: 500 });
-    const workers = startWorkers(connection, { db, mailer: refusing, from: 'x@latchwork.test' }, logger);
-    const id = await enqueueMail(db, queue, { tenantId }, { to: 'nobody@wexbridge-motors.test', template: 'notice', params: { title: 'T', message: 'M' } });
+    const refusing = nodemailer.createTransport({
+      host: '127.0.0.1',
+      port: 9,
+      connectionTimeout: 500,
+    });
+    const workers = startWorkers(
+      connection,
+      { db, mailer: refusing, from: 'x@latchwork.test' },
+      logger,
+    );
+    const id = await enqueueMail(
+      db,
+      queue,
+      { tenantId },
+      {
+        to: 'nobody@wexbridge-motors.test',
+        template: 'notice',
+        params: { title: 'T', message: 'M' },
+      },
+    );
     const first = await until(async () => {
       const r = await logRow(id);
       return r.attempts >= 1 ? r : undefined;
@@ -96,4 +167,3 @@ describe('the mail job', () => {
     await job?.remove();
   });
 });
-

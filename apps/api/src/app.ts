@@ -1,9 +1,26 @@
 import express from 'express';
 import helmet from 'helmet';
-import { buildOpenApiDocument, endpoint, errorHandler, notFoundHandler, requestLogger, routerFor, type EndpointDef } from '@latchwork/shared-server-kit';
 import {
-  actorMiddleware, auditEndpoints, authEndpoints, csrfProtection, guardEndpoint, meEndpoints, memberEndpoints,
-  providerEventEndpoints, sessionMiddleware, settingsEndpoints, type IdentityDeps,
+  buildOpenApiDocument,
+  endpoint,
+  errorHandler,
+  notFoundHandler,
+  requestLogger,
+  routerFor,
+  type EndpointDef,
+} from '@latchwork/shared-server-kit';
+import {
+  actorMiddleware,
+  auditEndpoints,
+  authEndpoints,
+  csrfProtection,
+  guardEndpoint,
+  meEndpoints,
+  memberEndpoints,
+  providerEventEndpoints,
+  sessionMiddleware,
+  settingsEndpoints,
+  type IdentityDeps,
 } from '@latchwork/identity-server';
 import type { ApiDeps } from './deps';
 import { healthEndpoints } from './health/health.endpoints';
@@ -13,17 +30,31 @@ export const API_PREFIX = '/api/v1';
 
 /** Every operation of the API, in the order they are matched. */
 export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
-  const identity: IdentityDeps = { db: deps.db, mailQueue: deps.mailQueue, oidc: deps.oidc, idpAdmin: deps.idpAdmin, appUrl: deps.config.appUrl };
+  const identity: IdentityDeps = {
+    db: deps.db,
+    mailQueue: deps.mailQueue,
+    oidc: deps.oidc,
+    idpAdmin: deps.idpAdmin,
+    appUrl: deps.config.appUrl,
+  };
   const endpoints: EndpointDef[] = [
     ...healthEndpoints(deps),
     ...authEndpoints(identity),
-    ...providerEventEndpoints({ ...identity, providerEventSecret: deps.config.providerEventSecret }),
+    ...providerEventEndpoints({
+      ...identity,
+      providerEventSecret: deps.config.providerEventSecret,
+    }),
     ...meEndpoints(identity),
     ...memberEndpoints(identity),
     ...settingsEndpoints(identity),
     ...auditEndpoints(identity),
   ];
-  const document = () => buildOpenApiDocument(endpoints, { title: 'Latchwork API', version: deps.config.version, serverUrl: API_PREFIX });
+  const document = () =>
+    buildOpenApiDocument(endpoints, {
+      title: 'Latchwork API',
+      version: deps.config.version,
+      serverUrl: API_PREFIX,
+    });
   endpoints.push(
     endpoint({
       method: 'get',
@@ -44,8 +75,10 @@ export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
  */
 export function routeAccess(deps: ApiDeps): Map<string, string> {
   const access = new Map<string, string>();
-  for (const e of apiEndpoints(deps)) access.set(`${e.method.toUpperCase()} ${API_PREFIX}${e.path}`, e.permission);
-  for (const d of DOCS_ROUTES) access.set(`${d.method.toUpperCase()} ${API_PREFIX}/docs${d.path}`, d.permission);
+  for (const e of apiEndpoints(deps))
+    access.set(`${e.method.toUpperCase()} ${API_PREFIX}${e.path}`, e.permission);
+  for (const d of DOCS_ROUTES)
+    access.set(`${d.method.toUpperCase()} ${API_PREFIX}/docs${d.path}`, d.permission);
   return access;
 }
 
@@ -57,10 +90,21 @@ export function createApp(deps: ApiDeps): express.Express {
   app.set('trust proxy', 'loopback');
   // HSTS and https upgrades belong to the TLS-terminating load balancer in production; on
   // plain-http loopback they would break the app.
-  app.use(helmet({ strictTransportSecurity: false, contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }));
+  app.use(
+    helmet({
+      strictTransportSecurity: false,
+      contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } },
+    }),
+  );
   app.use(requestLogger(deps.logger));
   // The raw body is kept for signed webhooks, whose signature covers the exact bytes.
-  app.use(API_PREFIX, express.json({ limit: '1mb', verify: (req, _res, buf) => ((req as { rawBody?: Buffer }).rawBody = buf) }));
+  app.use(
+    API_PREFIX,
+    express.json({
+      limit: '1mb',
+      verify: (req, _res, buf) => ((req as { rawBody?: Buffer }).rawBody = buf),
+    }),
+  );
   app.use(API_PREFIX, sessionMiddleware(deps.sessionPool, deps.config.sessionSecret));
   app.use(API_PREFIX, csrfProtection);
   app.use(API_PREFIX, actorMiddleware(deps.db));

@@ -17,7 +17,10 @@ function required(name: string): string {
 /** Connects to every dependency from environment variables (see docker-free-dev/lib/config.mjs). */
 export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
   const logger = createLogger('api');
-  const db = createDb({ connectionString: required('DATABASE_URL'), applicationName: 'latchwork-api' });
+  const db = createDb({
+    connectionString: required('DATABASE_URL'),
+    applicationName: 'latchwork-api',
+  });
   const redis = createRedisConnection(required('REDIS_URL'));
   const objectStore = {
     client: new MinioClient({
@@ -30,7 +33,12 @@ export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
     }),
     bucket: required('S3_BUCKET'),
   };
-  const mailer = nodemailer.createTransport({ host: required('SMTP_HOST'), port: Number(required('SMTP_PORT')), secure: false, ignoreTLS: process.env['SMTP_TLS'] !== 'true' });
+  const mailer = nodemailer.createTransport({
+    host: required('SMTP_HOST'),
+    port: Number(required('SMTP_PORT')),
+    secure: false,
+    ignoreTLS: process.env['SMTP_TLS'] !== 'true',
+  });
   const payments = new Stripe(required('PAYMENTS_SECRET_KEY'), {
     host: required('PAYMENTS_HOST'),
     port: Number(required('PAYMENTS_PORT')),
@@ -38,7 +46,11 @@ export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
     maxNetworkRetries: 1,
   });
   const mailQueue = createMailQueue(createRedisConnection(required('REDIS_URL')));
-  const sessionPool = new pg.Pool({ connectionString: required('DATABASE_URL'), max: 4, application_name: 'latchwork-api-sessions' });
+  const sessionPool = new pg.Pool({
+    connectionString: required('DATABASE_URL'),
+    max: 4,
+    application_name: 'latchwork-api-sessions',
+  });
   const appUrl = required('APP_URL');
   const oidc = new OidcClient({
     issuer: required('IDP_ISSUER'),
@@ -47,7 +59,15 @@ export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
     callbackUrl: `${appUrl}/api/v1/auth/callback`,
   });
   return {
-    db, redis, objectStore, mailer, payments, mailQueue, logger, sessionPool, oidc,
+    db,
+    redis,
+    objectStore,
+    mailer,
+    payments,
+    mailQueue,
+    logger,
+    sessionPool,
+    oidc,
     idpAdmin: httpIdentityProviderAdmin(required('IDP_ISSUER'), required('IDP_ADMIN_TOKEN')),
     config: {
       appUrl,

@@ -26,7 +26,13 @@ export function mailProcessor(deps: MailProcessorDeps) {
       await withTenant(deps.db, scope, (tx) =>
         tx
           .updateTable('emailLog')
-          .set({ status: 'sent', messageId: info.messageId, attempts, sentAt: new Date(), error: null })
+          .set({
+            status: 'sent',
+            messageId: info.messageId,
+            attempts,
+            sentAt: new Date(),
+            error: null,
+          })
           .where('tenantId', '=', scope.tenantId)
           .where('id', '=', data.emailLogId)
           .execute(),
@@ -37,7 +43,11 @@ export function mailProcessor(deps: MailProcessorDeps) {
       await withTenant(deps.db, scope, (tx) =>
         tx
           .updateTable('emailLog')
-          .set({ status: finalAttempt ? 'failed' : 'queued', attempts, error: (err as Error).message })
+          .set({
+            status: finalAttempt ? 'failed' : 'queued',
+            attempts,
+            error: (err as Error).message,
+          })
           .where('tenantId', '=', scope.tenantId)
           .where('id', '=', data.emailLogId)
           .execute(),

@@ -11,10 +11,23 @@ function required(name: string): string {
 }
 
 const logger = createLogger('worker');
-const db = createDb({ connectionString: required('DATABASE_URL'), applicationName: 'latchwork-worker', max: 5 });
+const db = createDb({
+  connectionString: required('DATABASE_URL'),
+  applicationName: 'latchwork-worker',
+  max: 5,
+});
 const connection = createRedisConnection(required('REDIS_URL'));
-const mailer = nodemailer.createTransport({ host: required('SMTP_HOST'), port: Number(required('SMTP_PORT')), secure: false, ignoreTLS: process.env['SMTP_TLS'] !== 'true' });
-const workers = startWorkers(connection, { db, mailer, from: process.env['MAIL_FROM'] ?? 'Latchwork <no-reply@latchwork.test>' }, logger);
+const mailer = nodemailer.createTransport({
+  host: required('SMTP_HOST'),
+  port: Number(required('SMTP_PORT')),
+  secure: false,
+  ignoreTLS: process.env['SMTP_TLS'] !== 'true',
+});
+const workers = startWorkers(
+  connection,
+  { db, mailer, from: process.env['MAIL_FROM'] ?? 'Latchwork <no-reply@latchwork.test>' },
+  logger,
+);
 logger.info(`worker started: ${workers.map((w) => w.name).join(', ')}`);
 
 async function shutdown(signal: string) {

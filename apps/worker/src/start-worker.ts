@@ -10,7 +10,10 @@ export function startWorkers(connection: Redis, deps: MailProcessorDeps, logger:
   for (const worker of [mail]) {
     worker.on('completed', (job) => logger.info({ queue: worker.name, jobId: job.id }, 'job done'));
     worker.on('failed', (job, err) =>
-      logger.warn({ queue: worker.name, jobId: job?.id, attempts: job?.attemptsMade, err: err.message }, 'job failed'),
+      logger.warn(
+        { queue: worker.name, jobId: job?.id, attempts: job?.attemptsMade, err: err.message },
+        'job failed',
+      ),
     );
     worker.on('error', (err) => logger.error({ err }, 'worker error'));
   }
@@ -23,7 +26,9 @@ export function startWorkers(connection: Redis, deps: MailProcessorDeps, logger:
  */
 export async function stopWorkers(workers: Worker[], graceMs = 20_000): Promise<void> {
   let timer: NodeJS.Timeout | undefined;
-  const forced = new Promise<'forced'>((resolve) => (timer = setTimeout(() => resolve('forced'), graceMs)));
+  const forced = new Promise<'forced'>(
+    (resolve) => (timer = setTimeout(() => resolve('forced'), graceMs)),
+  );
   const outcome = await Promise.race([Promise.all(workers.map((w) => w.close())), forced]);
   clearTimeout(timer);
   if (outcome === 'forced') await Promise.all(workers.map((w) => w.close(true)));

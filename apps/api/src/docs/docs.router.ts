@@ -30,7 +30,11 @@ export function docsRouter(openApiUrl: string): Router {
 <script src="swagger-ui-bundle.js"></script><script src="start.js"></script></body></html>`);
   });
   router.get('/start.js', (_req, res) => {
-    res.type('js').send(`window.ui = SwaggerUIBundle({ url: ${JSON.stringify(openApiUrl)}, dom_id: '#api-reference', deepLinking: true });`);
+    res
+      .type('js')
+      .send(
+        `window.ui = SwaggerUIBundle({ url: ${JSON.stringify(openApiUrl)}, dom_id: '#api-reference', deepLinking: true });`,
+      );
   });
   router.use(express.static(assets, { index: false, maxAge: '1d' }));
   return router;

@@ -16,11 +16,21 @@ async function timed(check: () => Promise<unknown>): Promise<CheckResult> {
   try {
     await Promise.race([
       check(),
-      new Promise((_, reject) => (timer = setTimeout(() => reject(new Error(`no answer within ${TIMEOUT_MS} ms`)), TIMEOUT_MS))),
+      new Promise(
+        (_, reject) =>
+          (timer = setTimeout(
+            () => reject(new Error(`no answer within ${TIMEOUT_MS} ms`)),
+            TIMEOUT_MS,
+          )),
+      ),
     ]);
     return { status: 'up', latencyMs: Math.round(performance.now() - started) };
   } catch (err) {
-    return { status: 'down', latencyMs: Math.round(performance.now() - started), error: (err as Error).message || String(err) };
+    return {
+      status: 'down',
+      latencyMs: Math.round(performance.now() - started),
+      error: (err as Error).message || String(err),
+    };
   } finally {
     clearTimeout(timer);
   }
@@ -33,7 +43,8 @@ async function objectStoreRoundTrip({ client, bucket }: ApiDeps['objectStore']):
   await client.putObject(bucket, key, body, body.length, { 'Content-Type': 'text/plain' });
   const stat = await client.statObject(bucket, key);
   await client.removeObject(bucket, key);
-  if (stat.size !== body.length) throw new Error(`stored ${stat.size} bytes, expected ${body.length}`);
+  if (stat.size !== body.length)
+    throw new Error(`stored ${stat.size} bytes, expected ${body.length}`);
 }
 
 /**

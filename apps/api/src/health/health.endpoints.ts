@@ -3,12 +3,22 @@ import { endpoint } from '@latchwork/shared-server-kit';
 import type { ApiDeps } from '../deps';
 import { checkDependencies } from './dependency-checks';
 
-const check = z.object({ status: z.enum(['up', 'down']), latencyMs: z.number().int(), error: z.string().optional() });
+const check = z.object({
+  status: z.enum(['up', 'down']),
+  latencyMs: z.number().int(),
+  error: z.string().optional(),
+});
 
 export const healthResponse = z.object({
   status: z.enum(['up', 'degraded']),
   version: z.string(),
-  checks: z.object({ postgres: check, redis: check, objectStore: check, mail: check, payments: check }),
+  checks: z.object({
+    postgres: check,
+    redis: check,
+    objectStore: check,
+    mail: check,
+    payments: check,
+  }),
 });
 
 export function healthEndpoints(deps: ApiDeps) {

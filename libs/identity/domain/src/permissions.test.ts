@@ -17,6 +17,7 @@ describe('the permission table', () => {
   });
 
   it('names only known roles', () => {
-    for (const roles of Object.values(PERMISSIONS)) for (const r of roles) expect(ROLES).toContain(r);
+    for (const roles of Object.values(PERMISSIONS))
+      for (const r of roles) expect(ROLES).toContain(r);
   });
 });

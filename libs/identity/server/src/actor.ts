@@ -20,8 +20,12 @@ export function actorMiddleware(db: Kysely<Database>): RequestHandler {
 /** The guard every declared endpoint passes through (see routerFor). */
 export function guardEndpoint(req: Parameters<RequestHandler>[0], permission: string): void {
   if (permission === 'public') return;
-  if (!req.actor) throw new UnauthenticatedError(req.session?.userId ? 'You are no longer a member of this firm. Sign in again.' : undefined);
+  if (!req.actor)
+    throw new UnauthenticatedError(
+      req.session?.userId ? 'You are no longer a member of this firm. Sign in again.' : undefined,
+    );
   if (permission === 'signed-in') return;
-  if (!isPermission(permission)) throw new Error(`Route declares unknown permission "${permission}"`);
+  if (!isPermission(permission))
+    throw new Error(`Route declares unknown permission "${permission}"`);
   if (!roleHas(req.actor.role, permission)) throw new ForbiddenError();
 }

@@ -21,7 +21,8 @@ export function auditEndpoints(deps: IdentityDeps) {
         before: z.coerce.date().optional(),
         limit: z.coerce.number().int().min(1).max(200).default(50),
       }),
-      handle: ({ query, req }) => withTenant(deps.db, scopeOf(req), (tx) => listAudit(tx, scopeOf(req), query)),
+      handle: ({ query, req }) =>
+        withTenant(deps.db, scopeOf(req), (tx) => listAudit(tx, scopeOf(req), query)),
     }),
   ];
 }

@@ -35,8 +35,13 @@ export async function recordAudit(tx: Tx, scope: TenantScope, entry: AuditInput)
 }
 
 /** The same event in each of several firms (a sign-in is seen by every firm the person works for). */
-export async function recordAuditInTenants(db: Kysely<Database>, tenantIds: string[], entry: AuditInput): Promise<void> {
-  for (const tenantId of tenantIds) await withTenant(db, { tenantId }, (tx) => recordAudit(tx, { tenantId }, entry));
+export async function recordAuditInTenants(
+  db: Kysely<Database>,
+  tenantIds: string[],
+  entry: AuditInput,
+): Promise<void> {
+  for (const tenantId of tenantIds)
+    await withTenant(db, { tenantId }, (tx) => recordAudit(tx, { tenantId }, entry));
 }
 
 export interface AuditFilter {
@@ -52,7 +57,17 @@ export function listAudit(tx: Tx, scope: TenantScope, filter: AuditFilter) {
   let query = tx
     .selectFrom('auditLog as a')
     .leftJoin('appUser as u', 'u.id', 'a.userId')
-    .select(['a.id', 'a.createdAt', 'a.action', 'a.subject', 'a.detail', 'a.ipAddress', 'a.userId', 'u.name as userName', 'u.email as userEmail'])
+    .select([
+      'a.id',
+      'a.createdAt',
+      'a.action',
+      'a.subject',
+      'a.detail',
+      'a.ipAddress',
+      'a.userId',
+      'u.name as userName',
+      'u.email as userEmail',
+    ])
     .where('a.tenantId', '=', scope.tenantId);
   if (filter.action) query = query.where('a.action', '=', filter.action);
   if (filter.userId) query = query.where('a.userId', '=', filter.userId);

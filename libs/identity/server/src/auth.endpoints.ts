@@ -15,8 +15,14 @@ const safeReturnTo = z
   .max(500)
   .optional();
 
-const regenerate = (req: Request) => new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
-const destroy = (req: Request) => new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
+const regenerate = (req: Request) =>
+  new Promise<void>((resolve, reject) =>
+    req.session.regenerate((err) => (err ? reject(err) : resolve())),
+  );
+const destroy = (req: Request) =>
+  new Promise<void>((resolve, reject) =>
+    req.session.destroy((err) => (err ? reject(err) : resolve())),
+  );
 
 export function authEndpoints(deps: IdentityDeps) {
   const failed = (reason: string) => `/?signin=${encodeURIComponent(reason)}`;
@@ -54,7 +60,12 @@ export function authEndpoints(deps: IdentityDeps) {
         issueCsrfToken(req, res);
         const tenantIds = memberships.map((m) => m.tenantId);
         await markJoined(deps.db, user.id, tenantIds);
-        await recordAuditInTenants(deps.db, tenantIds, { userId: user.id, action: 'sign-in', subject: user.email, ipAddress: req.ip });
+        await recordAuditInTenants(deps.db, tenantIds, {
+          userId: user.id,
+          action: 'sign-in',
+          subject: user.email,
+          ipAddress: req.ip,
+        });
         res.redirect(returnTo ?? '/');
       },
     }),
@@ -68,11 +79,17 @@ export function authEndpoints(deps: IdentityDeps) {
       async handle({ req, res }) {
         const actor = actorOf(req);
         const memberships = await membershipsOfUser(deps.db, actor.userId);
-        await recordAuditInTenants(deps.db, memberships.map((m) => m.tenantId), { userId: actor.userId, action: 'sign-out', subject: actor.email, ipAddress: req.ip });
+        await recordAuditInTenants(
+          deps.db,
+          memberships.map((m) => m.tenantId),
+          { userId: actor.userId, action: 'sign-out', subject: actor.email, ipAddress: req.ip },
+        );
         const idToken = req.session.idToken;
         await destroy(req);
         res.clearCookie(SESSION_COOKIE, { path: '/' });
-        const signOutUrl = await deps.oidc.signOutUrl(idToken, `${deps.appUrl}/`).catch(() => undefined);
+        const signOutUrl = await deps.oidc
+          .signOutUrl(idToken, `${deps.appUrl}/`)
+          .catch(() => undefined);
         return { signOutUrl: signOutUrl ?? null };
       },
     }),

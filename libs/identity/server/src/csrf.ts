@@ -9,7 +9,12 @@ export const CSRF_HEADER = 'x-xsrf-token';
 /** Gives the session a token and exposes it in a script-readable cookie (double submit). */
 export function issueCsrfToken(req: Request, res: Response): string {
   req.session.csrfToken ??= randomBytes(32).toString('base64url');
-  res.cookie(CSRF_COOKIE, req.session.csrfToken, { sameSite: 'lax', secure: req.secure, httpOnly: false, path: '/' });
+  res.cookie(CSRF_COOKIE, req.session.csrfToken, {
+    sameSite: 'lax',
+    secure: req.secure,
+    httpOnly: false,
+    path: '/',
+  });
   return req.session.csrfToken;
 }
 
@@ -23,7 +28,16 @@ export const csrfProtection: RequestHandler = (req, _res, next) => {
   if (SAFE.has(req.method) || !req.session?.userId) return next();
   const expected = req.session.csrfToken ?? '';
   const given = req.get(CSRF_HEADER) ?? '';
-  const ok = expected.length > 0 && given.length === expected.length && timingSafeEqual(Buffer.from(given), Buffer.from(expected));
-  if (!ok) return next(new AppError('forbidden', 'The request did not carry this session’s security token. Reload the page and try again.'));
+  const ok =
+    expected.length > 0 &&
+    given.length === expected.length &&
+    timingSafeEqual(Buffer.from(given), Buffer.from(expected));
+  if (!ok)
+    return next(
+      new AppError(
+        'forbidden',
+        'The request did not carry this session’s security token. Reload the page and try again.',
+      ),
+    );
   next();
 };

@@ -17,7 +17,10 @@ export function findUserByEmail(db: Kysely<Database>, email: string) {
  * The firms a person belongs to. Runs with `app.user_id` set, which the own-memberships
  * policy allows, since no firm has been chosen yet when this is asked (at sign-in).
  */
-export async function membershipsOfUser(db: Kysely<Database>, userId: string): Promise<MembershipSummary[]> {
+export async function membershipsOfUser(
+  db: Kysely<Database>,
+  userId: string,
+): Promise<MembershipSummary[]> {
   return db.transaction().execute(async (tx) => {
     await sql`select set_config('app.user_id', ${userId}, true)`.execute(tx);
     return tx
@@ -31,7 +34,11 @@ export async function membershipsOfUser(db: Kysely<Database>, userId: string): P
 }
 
 /** Marks a person's pending invitations as joined: their first sign-in accepts them. */
-export async function markJoined(db: Kysely<Database>, userId: string, tenantIds: string[]): Promise<void> {
+export async function markJoined(
+  db: Kysely<Database>,
+  userId: string,
+  tenantIds: string[],
+): Promise<void> {
   for (const tenantId of tenantIds) {
     await withTenant(db, { tenantId }, (tx) =>
       tx
@@ -46,7 +53,11 @@ export async function markJoined(db: Kysely<Database>, userId: string, tenantIds
 }
 
 /** The actor for a session, or undefined when the membership no longer exists. */
-export async function loadActor(db: Kysely<Database>, userId: string, tenantId: string): Promise<Actor | undefined> {
+export async function loadActor(
+  db: Kysely<Database>,
+  userId: string,
+  tenantId: string,
+): Promise<Actor | undefined> {
   const row = await withTenant(db, { tenantId }, (tx) =>
     tx
       .selectFrom('membership as m')
@@ -57,5 +68,12 @@ export async function loadActor(db: Kysely<Database>, userId: string, tenantId: 
       .executeTakeFirst(),
   );
   if (!row || !isRole(row.role)) return undefined;
-  return { userId: row.id, email: row.email, name: row.name, tenantId, role: row.role, permissions: permissionsOf(row.role) };
+  return {
+    userId: row.id,
+    email: row.email,
+    name: row.name,
+    tenantId,
+    role: row.role,
+    permissions: permissionsOf(row.role),
+  };
 }

@@ -13,7 +13,10 @@ export interface IdentityProviderAdmin {
   }): Promise<{ url: string; expiresAt: string; accountExists: boolean }>;
 }
 
-export function httpIdentityProviderAdmin(issuer: string, adminToken: string): IdentityProviderAdmin {
+export function httpIdentityProviderAdmin(
+  issuer: string,
+  adminToken: string,
+): IdentityProviderAdmin {
   return {
     async createPasswordTicket(input) {
       const res = await fetch(`${issuer}/admin/password-tickets`, {

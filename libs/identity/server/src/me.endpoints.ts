@@ -8,8 +8,16 @@ import { actorOf } from './request-context';
 
 const meResponse = z.object({
   user: z.object({ id: z.string(), email: z.string(), name: z.string() }),
-  memberships: z.array(z.object({ tenantId: z.string(), tenantName: z.string(), role: z.string() })),
-  activeTenant: z.object({ id: z.string(), name: z.string(), role: z.string(), currency: z.string(), units: z.string() }),
+  memberships: z.array(
+    z.object({ tenantId: z.string(), tenantName: z.string(), role: z.string() }),
+  ),
+  activeTenant: z.object({
+    id: z.string(),
+    name: z.string(),
+    role: z.string(),
+    currency: z.string(),
+    units: z.string(),
+  }),
   permissions: z.array(z.string()),
 });
 
@@ -18,7 +26,11 @@ export function meEndpoints(deps: IdentityDeps) {
     const actor = actorOf(req);
     issueCsrfToken(req, res);
     const memberships = await membershipsOfUser(deps.db, actor.userId);
-    const tenant = await deps.db.selectFrom('tenant').select(['id', 'name', 'currency', 'units']).where('id', '=', actor.tenantId).executeTakeFirstOrThrow();
+    const tenant = await deps.db
+      .selectFrom('tenant')
+      .select(['id', 'name', 'currency', 'units'])
+      .where('id', '=', actor.tenantId)
+      .executeTakeFirstOrThrow();
     return {
       user: { id: actor.userId, email: actor.email, name: actor.name },
       memberships,

@@ -6,7 +6,15 @@ import { ROLES } from '@latchwork/identity-domain';
 import { recordAudit } from './audit';
 import type { IdentityDeps } from './identity-deps';
 import { actorOf, scopeOf } from './request-context';
-import { addMembership, deleteMembership, ensureUser, findMember, listMembers, lockOwners, setRole } from './members.repository';
+import {
+  addMembership,
+  deleteMembership,
+  ensureUser,
+  findMember,
+  listMembers,
+  lockOwners,
+  setRole,
+} from './members.repository';
 
 /** How long an invitation link works (common practice for such links: a few days). */
 export const INVITATION_TTL_SECONDS = 72 * 3600;
@@ -23,7 +31,11 @@ const userIdParams = z.object({ userId: z.uuid() });
 
 export function memberEndpoints(deps: IdentityDeps) {
   async function sendInvitation(scope: TenantScope, person: { email: string; name: string }) {
-    const tenant = await deps.db.selectFrom('tenant').select('name').where('id', '=', scope.tenantId).executeTakeFirstOrThrow();
+    const tenant = await deps.db
+      .selectFrom('tenant')
+      .select('name')
+      .where('id', '=', scope.tenantId)
+      .executeTakeFirstOrThrow();
     const ticket = await deps.idpAdmin.createPasswordTicket({
       email: person.email,
       name: person.name,
@@ -57,16 +69,27 @@ export function memberEndpoints(deps: IdentityDeps) {
       tags: ['members'],
       permission: 'members:write',
       status: 201,
-      body: z.object({ email: z.email().max(320).toLowerCase(), name: z.string().trim().min(1).max(200), role: z.enum(ROLES) }),
+      body: z.object({
+        email: z.email().max(320).toLowerCase(),
+        name: z.string().trim().min(1).max(200),
+        role: z.enum(ROLES),
+      }),
       response: member,
       async handle({ body, req }) {
         const scope = scopeOf(req);
         const actor = actorOf(req);
         const created = await withTenant(deps.db, scope, async (tx) => {
           const userId = await ensureUser(tx, body.email, body.name);
-          if (await findMember(tx, scope, userId)) throw new ConflictError(`${body.email} is already a member of this firm.`);
+          if (await findMember(tx, scope, userId))
+            throw new ConflictError(`${body.email} is already a member of this firm.`);
           await addMembership(tx, scope, userId, body.role, actor.userId);
-          await recordAudit(tx, scope, { userId: actor.userId, action: 'member-invited', subject: body.email, detail: { role: body.role }, ipAddress: req.ip });
+          await recordAudit(tx, scope, {
+            userId: actor.userId,
+            action: 'member-invited',
+            subject: body.email,
+            detail: { role: body.role },
+            ipAddress: req.ip,
+          });
           return findMember(tx, scope, userId);
         });
         await sendInvitation(scope, body);
@@ -83,7 +106,9 @@ export function memberEndpoints(deps: IdentityDeps) {
       status: 202,
       async handle({ params, req }) {
         const scope = scopeOf(req);
-        const found = await withTenant(deps.db, scope, (tx) => findMember(tx, scope, params.userId));
+        const found = await withTenant(deps.db, scope, (tx) =>
+          findMember(tx, scope, params.userId),
+        );
         if (!found) throw new NotFoundError('That member');
         if (found.joinedAt) throw new ConflictError(`${found.email} has already joined.`);
         await sendInvitation(scope, found);
@@ -106,10 +131,18 @@ export function memberEndpoints(deps: IdentityDeps) {
           const found = await findMember(tx, scope, params.userId);
           if (!found) throw new NotFoundError('That member');
           if (found.role === 'owner' && body.role !== 'owner' && owners.length <= 1) {
-            throw new ConflictError('A firm needs at least one owner: make someone else an owner first.');
+            throw new ConflictError(
+              'A firm needs at least one owner: make someone else an owner first.',
+            );
           }
           await setRole(tx, scope, params.userId, body.role);
-          await recordAudit(tx, scope, { userId: actorOf(req).userId, action: 'member-role-changed', subject: found.email, detail: { from: found.role, to: body.role }, ipAddress: req.ip });
+          await recordAudit(tx, scope, {
+            userId: actorOf(req).userId,
+            action: 'member-role-changed',
+            subject: found.email,
+            detail: { from: found.role, to: body.role },
+            ipAddress: req.ip,
+          });
           return findMember(tx, scope, params.userId);
         });
       },
@@ -128,9 +161,18 @@ export function memberEndpoints(deps: IdentityDeps) {
           const owners = await lockOwners(tx, scope);
           const found = await findMember(tx, scope, params.userId);
           if (!found) throw new NotFoundError('That member');
-          if (found.role === 'owner' && owners.length <= 1) throw new ConflictError('A firm needs at least one owner: make someone else an owner first.');
+          if (found.role === 'owner' && owners.length <= 1)
+            throw new ConflictError(
+              'A firm needs at least one owner: make someone else an owner first.',
+            );
           await deleteMembership(tx, scope, params.userId);
-          await recordAudit(tx, scope, { userId: actorOf(req).userId, action: 'member-removed', subject: found.email, detail: { role: found.role }, ipAddress: req.ip });
+          await recordAudit(tx, scope, {
+            userId: actorOf(req).userId,
+            action: 'member-removed',
+            subject: found.email,
+            detail: { role: found.role },
+            ipAddress: req.ip,
+          });
         });
         res.status(204).end();
       },

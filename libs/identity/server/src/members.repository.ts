@@ -37,19 +37,45 @@ export async function lockOwners(tx: Tx, scope: TenantScope): Promise<string[]> 
 
 /** The person's account, made on first invitation; an e-mail is one person across firms. */
 export async function ensureUser(tx: Tx, email: string, name: string): Promise<string> {
-  await tx.insertInto('appUser').values({ email, name }).onConflict((oc) => oc.column('email').doNothing()).execute();
-  const row = await tx.selectFrom('appUser').select('id').where('email', '=', email).executeTakeFirstOrThrow();
+  await tx
+    .insertInto('appUser')
+    .values({ email, name })
+    .onConflict((oc) => oc.column('email').doNothing())
+    .execute();
+  const row = await tx
+    .selectFrom('appUser')
+    .select('id')
+    .where('email', '=', email)
+    .executeTakeFirstOrThrow();
   return row.id;
 }
 
-export async function addMembership(tx: Tx, scope: TenantScope, userId: string, role: Role, invitedBy: string) {
-  await tx.insertInto('membership').values({ tenantId: scope.tenantId, userId, role, invitedBy, joinedAt: null }).execute();
+export async function addMembership(
+  tx: Tx,
+  scope: TenantScope,
+  userId: string,
+  role: Role,
+  invitedBy: string,
+) {
+  await tx
+    .insertInto('membership')
+    .values({ tenantId: scope.tenantId, userId, role, invitedBy, joinedAt: null })
+    .execute();
 }
 
 export async function setRole(tx: Tx, scope: TenantScope, userId: string, role: Role) {
-  await tx.updateTable('membership').set({ role }).where('tenantId', '=', scope.tenantId).where('userId', '=', userId).execute();
+  await tx
+    .updateTable('membership')
+    .set({ role })
+    .where('tenantId', '=', scope.tenantId)
+    .where('userId', '=', userId)
+    .execute();
 }
 
 export async function deleteMembership(tx: Tx, scope: TenantScope, userId: string) {
-  await tx.deleteFrom('membership').where('tenantId', '=', scope.tenantId).where('userId', '=', userId).execute();
+  await tx
+    .deleteFrom('membership')
+    .where('tenantId', '=', scope.tenantId)
+    .where('userId', '=', userId)
+    .execute();
 }

@@ -58,9 +58,18 @@ export class OidcClient {
             } as ConstructorParameters<typeof OpenIdConnectStrategy>[0],
             // Five parameters: the strategy picks the verify signature by its arity and then
             // passes the ID token, kept for the provider's sign-out.
-            ((_issuer: string, profile: { emails?: { value: string }[] }, _context: unknown, idToken: string, done: (err: unknown, user?: SignedInIdentity | false, info?: unknown) => void) => {
+            ((
+              _issuer: string,
+              profile: { emails?: { value: string }[] },
+              _context: unknown,
+              idToken: string,
+              done: (err: unknown, user?: SignedInIdentity | false, info?: unknown) => void,
+            ) => {
               const email = profile.emails?.[0]?.value;
-              if (!email) return done(null, false, { message: 'The identity provider did not share an e-mail address.' });
+              if (!email)
+                return done(null, false, {
+                  message: 'The identity provider did not share an e-mail address.',
+                });
               done(null, { email: email.toLowerCase(), idToken });
             }) as unknown as ConstructorParameters<typeof OpenIdConnectStrategy>[1],
           ),
@@ -78,25 +87,37 @@ export class OidcClient {
   async redirectToProvider(req: Request, res: Response): Promise<void> {
     await this.discover();
     await new Promise<void>((resolve, reject) => {
-      this.passport.authenticate('oidc', { session: false })(req, res, (err: unknown) => (err ? reject(err) : resolve()));
+      this.passport.authenticate('oidc', { session: false })(req, res, (err: unknown) =>
+        err ? reject(err) : resolve(),
+      );
       res.once('finish', () => resolve());
     });
   }
 
   /** Completes the flow on the callback: the identity, or the reason it failed. */
-  async complete(req: Request, res: Response): Promise<{ identity?: SignedInIdentity; failure?: string }> {
+  async complete(
+    req: Request,
+    res: Response,
+  ): Promise<{ identity?: SignedInIdentity; failure?: string }> {
     await this.discover();
     return new Promise((resolve, reject) => {
-      this.passport.authenticate('oidc', { session: false }, (err: unknown, user: SignedInIdentity | false, info: { message?: string } | undefined) => {
-        if (err) return reject(err);
-        if (!user) return resolve({ failure: info?.message ?? 'Sign-in was not completed.' });
-        resolve({ identity: user });
-      })(req, res, reject);
+      this.passport.authenticate(
+        'oidc',
+        { session: false },
+        (err: unknown, user: SignedInIdentity | false, info: { message?: string } | undefined) => {
+          if (err) return reject(err);
+          if (!user) return resolve({ failure: info?.message ?? 'Sign-in was not completed.' });
+          resolve({ identity: user });
+        },
+      )(req, res, reject);
     });
   }
 
   /** The provider's sign-out URL (RP-initiated logout), or undefined if it has none. */
-  async signOutUrl(idToken: string | undefined, postLogoutRedirectUri: string): Promise<string | undefined> {
+  async signOutUrl(
+    idToken: string | undefined,
+    postLogoutRedirectUri: string,
+  ): Promise<string | undefined> {
     const d = await this.discover();
     if (!d.end_session_endpoint) return undefined;
     const url = new URL(d.end_session_endpoint);

@@ -36,11 +36,18 @@ export function providerEventEndpoints(deps: IdentityDeps & { providerEventSecre
         const raw = (req as { rawBody?: Buffer }).rawBody ?? Buffer.alloc(0);
         const expected = Buffer.from(signProviderEvent(raw, deps.providerEventSecret));
         const given = Buffer.from(req.get('x-idp-signature') ?? '');
-        if (given.length !== expected.length || !timingSafeEqual(given, expected)) throw new UnauthenticatedError('Bad event signature.');
+        if (given.length !== expected.length || !timingSafeEqual(given, expected))
+          throw new UnauthenticatedError('Bad event signature.');
         const user = await findUserByEmail(deps.db, body.email.toLowerCase());
         if (!user) return { recorded: 0 };
         const tenants = (await membershipsOfUser(deps.db, user.id)).map((m) => m.tenantId);
-        await recordAuditInTenants(deps.db, tenants, { userId: user.id, action: body.type, subject: user.email, ipAddress: body.ipAddress, detail: { at: body.at } });
+        await recordAuditInTenants(deps.db, tenants, {
+          userId: user.id,
+          action: body.type,
+          subject: user.email,
+          ipAddress: body.ipAddress,
+          detail: { at: body.at },
+        });
         return { recorded: tenants.length };
       },
     }),

@@ -15,7 +15,12 @@ export function sessionMiddleware(pool: Pool, secret: string) {
   return session({
     name: SESSION_COOKIE,
     secret,
-    store: new PgStore({ pool, tableName: 'app_session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+    store: new PgStore({
+      pool,
+      tableName: 'app_session',
+      createTableIfMissing: false,
+      pruneSessionInterval: 15 * 60,
+    }),
     resave: false,
     saveUninitialized: false,
     rolling: true,

@@ -5,7 +5,11 @@ import { recordAudit } from './audit';
 import type { IdentityDeps } from './identity-deps';
 import { actorOf, scopeOf } from './request-context';
 
-const prefix = z.string().trim().max(12).regex(/^[A-Za-z0-9\-/]*$/, 'letters, digits, "-" and "/" only');
+const prefix = z
+  .string()
+  .trim()
+  .max(12)
+  .regex(/^[A-Za-z0-9\-/]*$/, 'letters, digits, "-" and "/" only');
 
 export const tenantSettings = z.object({
   name: z.string().trim().min(1).max(200),
@@ -16,15 +20,33 @@ export const tenantSettings = z.object({
   /** Basis points: 2000 = 20 %. */
   defaultTaxRateBp: z.number().int().min(0).max(10000),
   paymentTermsDays: z.number().int().min(0).max(365),
-  numberPrefixes: z.object({ job: prefix, quote: prefix, invoice: prefix, creditNote: prefix, purchaseOrder: prefix }),
+  numberPrefixes: z.object({
+    job: prefix,
+    quote: prefix,
+    invoice: prefix,
+    creditNote: prefix,
+    purchaseOrder: prefix,
+  }),
 });
 type TenantSettings = z.infer<typeof tenantSettings>;
 
-const COLUMNS = ['name', 'addressLines', 'currency', 'units', 'defaultTaxRateBp', 'paymentTermsDays', 'numberPrefixes'] as const;
+const COLUMNS = [
+  'name',
+  'addressLines',
+  'currency',
+  'units',
+  'defaultTaxRateBp',
+  'paymentTermsDays',
+  'numberPrefixes',
+] as const;
 
 export function settingsEndpoints(deps: IdentityDeps) {
   const read = (tenantId: string) =>
-    deps.db.selectFrom('tenant').select(COLUMNS).where('id', '=', tenantId).executeTakeFirstOrThrow() as Promise<TenantSettings>;
+    deps.db
+      .selectFrom('tenant')
+      .select(COLUMNS)
+      .where('id', '=', tenantId)
+      .executeTakeFirstOrThrow() as Promise<TenantSettings>;
   return [
     endpoint({
       method: 'get',
@@ -46,16 +68,32 @@ export function settingsEndpoints(deps: IdentityDeps) {
       async handle({ body, req }) {
         const scope = scopeOf(req);
         const before = await read(scope.tenantId);
-        const changed = COLUMNS.filter((c) => JSON.stringify(before[c]) !== JSON.stringify(body[c]));
+        const changed = COLUMNS.filter(
+          (c) => JSON.stringify(before[c]) !== JSON.stringify(body[c]),
+        );
         await withTenant(deps.db, scope, async (tx) => {
           await tx
             .updateTable('tenant')
-            .set({ ...body, numberPrefixes: JSON.stringify(body.numberPrefixes) as unknown as Record<string, string> })
+            .set({
+              ...body,
+              numberPrefixes: JSON.stringify(body.numberPrefixes) as unknown as Record<
+                string,
+                string
+              >,
+            })
             .where('id', '=', scope.tenantId)
             .execute();
           if (changed.length) {
-            const detail = Object.fromEntries(changed.map((c) => [c, { from: before[c], to: body[c] }]));
-            await recordAudit(tx, scope, { userId: actorOf(req).userId, action: 'settings-changed', subject: changed.join(', '), detail, ipAddress: req.ip });
+            const detail = Object.fromEntries(
+              changed.map((c) => [c, { from: before[c], to: body[c] }]),
+            );
+            await recordAudit(tx, scope, {
+              userId: actorOf(req).userId,
+              action: 'settings-changed',
+              subject: changed.join(', '),
+              detail,
+              ipAddress: req.ip,
+            });
           }
         });
         return read(scope.tenantId);

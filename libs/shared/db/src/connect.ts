@@ -19,5 +19,8 @@ export function createDb(options: DbOptions): Kysely<Database> {
     max: options.max ?? 10,
     application_name: options.applicationName ?? 'latchwork',
   });
-  return new Kysely<Database>({ dialect: new PostgresDialect({ pool }), plugins: [new CamelCasePlugin()] });
+  return new Kysely<Database>({
+    dialect: new PostgresDialect({ pool }),
+    plugins: [new CamelCasePlugin()],
+  });
 }

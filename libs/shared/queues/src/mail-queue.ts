@@ -41,11 +41,21 @@ export async function enqueueMail(
   const row = await withTenant(db, scope, (tx) =>
     tx
       .insertInto('emailLog')
-      .values({ tenantId: scope.tenantId, toAddress: message.to, subject, template: message.template, status: 'queued' })
+      .values({
+        tenantId: scope.tenantId,
+        toAddress: message.to,
+        subject,
+        template: message.template,
+        status: 'queued',
+      })
       .returning('id')
       .executeTakeFirstOrThrow(),
   );
-  const job: MailJob = mailJobSchema.parse({ tenantId: scope.tenantId, emailLogId: row.id, ...message });
+  const job: MailJob = mailJobSchema.parse({
+    tenantId: scope.tenantId,
+    emailLogId: row.id,
+    ...message,
+  });
   await queue.add(message.template, job, { jobId: row.id });
   return row.id;
 }

@@ -6,9 +6,16 @@ export interface RenderedMail {
 }
 
 const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string);
+  s.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string,
+  );
 
-function layout(title: string, paragraphs: string[], action?: { label: string; url: string }): string {
+function layout(
+  title: string,
+  paragraphs: string[],
+  action?: { label: string; url: string },
+): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join('');
   const button = action
     ? `<p><a href="${escapeHtml(action.url)}" style="background:#1f4e5a;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(action.label)}</a></p>`
@@ -36,15 +43,29 @@ export const MAIL_TEMPLATES = {
     const url = required(params, 'url');
     const expires = required(params, 'expires');
     const subject = `You are invited to ${firm} on Latchwork`;
-    const lines = [`${firm} has invited you to join their team on Latchwork.`, `The link works once and expires ${expires}.`];
-    return { subject, text: `${lines.join('\n')}\n\nSet your password: ${url}\n`, html: layout(subject, lines, { label: 'Set your password', url }) };
+    const lines = [
+      `${firm} has invited you to join their team on Latchwork.`,
+      `The link works once and expires ${expires}.`,
+    ];
+    return {
+      subject,
+      text: `${lines.join('\n')}\n\nSet your password: ${url}\n`,
+      html: layout(subject, lines, { label: 'Set your password', url }),
+    };
   },
   invitationExisting(params: Record<string, string>): RenderedMail {
     const firm = required(params, 'firm');
     const url = required(params, 'url');
     const subject = `You have been added to ${firm} on Latchwork`;
-    const lines = [`${firm} has added you to their team on Latchwork.`, 'Sign in with your existing Latchwork password and choose the firm at the top of the page.'];
-    return { subject, text: `${lines.join('\n')}\n\nSign in: ${url}\n`, html: layout(subject, lines, { label: 'Sign in', url }) };
+    const lines = [
+      `${firm} has added you to their team on Latchwork.`,
+      'Sign in with your existing Latchwork password and choose the firm at the top of the page.',
+    ];
+    return {
+      subject,
+      text: `${lines.join('\n')}\n\nSign in: ${url}\n`,
+      html: layout(subject, lines, { label: 'Sign in', url }),
+    };
   },
 } satisfies Record<string, (params: Record<string, string>) => RenderedMail>;
 

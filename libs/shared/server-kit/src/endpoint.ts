@@ -10,7 +10,11 @@ type Parsed<S extends Schema> = S extends z.ZodType ? z.output<S> : undefined;
  * One API operation, declared once: its zod schemas validate the request, type the
  * handler and feed the OpenAPI document; `permission` is what the caller must hold.
  */
-export interface EndpointDef<B extends Schema = Schema, Q extends Schema = Schema, P extends Schema = Schema> {
+export interface EndpointDef<
+  B extends Schema = Schema,
+  Q extends Schema = Schema,
+  P extends Schema = Schema,
+> {
   method: HttpMethod;
   /** Express path below /api/v1, e.g. `/takeoffs/:id`. */
   path: string;
@@ -34,9 +38,11 @@ export interface EndpointDef<B extends Schema = Schema, Q extends Schema = Schem
 }
 
 /** Helper that keeps the schemas' types flowing into `handle`. */
-export function endpoint<B extends Schema = undefined, Q extends Schema = undefined, P extends Schema = undefined>(
-  def: EndpointDef<B, Q, P>,
-): EndpointDef {
+export function endpoint<
+  B extends Schema = undefined,
+  Q extends Schema = undefined,
+  P extends Schema = undefined,
+>(def: EndpointDef<B, Q, P>): EndpointDef {
   return def as unknown as EndpointDef;
 }
 
@@ -54,7 +60,10 @@ function parsePart(schema: Schema, value: unknown, part: string): unknown {
   const problems = problemsOf(result.error, part === 'body' ? '' : part);
   const first = problems[0];
   const where = first?.path ? ` (${first.path})` : '';
-  throw new ValidationError(`Invalid ${part}${where}: ${first?.message ?? 'check the input'}`, problems);
+  throw new ValidationError(
+    `Invalid ${part}${where}: ${first?.message ?? 'check the input'}`,
+    problems,
+  );
 }
 
 export interface RouterOptions {

@@ -36,13 +36,20 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (err?.type === 'entity.parse.failed') {
     error = new AppError('malformed_json', 'The request body is not valid JSON.');
   } else if (err?.type === 'entity.too.large') {
-    error = new AppError('payload_too_large', `The request body is larger than ${err.limit} bytes.`);
+    error = new AppError(
+      'payload_too_large',
+      `The request body is larger than ${err.limit} bytes.`,
+    );
   } else {
     req.log?.error({ err }, 'unhandled error');
-    error = new AppError('internal', 'Something went wrong on our side. The error has been logged.');
+    error = new AppError(
+      'internal',
+      'Something went wrong on our side. The error has been logged.',
+    );
   }
   const status = statusFor(error);
-  if (error instanceof TooManyRequestsError) res.setHeader('Retry-After', String(error.retryAfterSeconds));
+  if (error instanceof TooManyRequestsError)
+    res.setHeader('Retry-After', String(error.retryAfterSeconds));
   const body: ErrorBody = { error: { code: error.code, message: error.message } };
   if (error.details !== undefined) body.error.details = error.details;
   res.status(status).json(body);

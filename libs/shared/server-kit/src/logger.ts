@@ -12,13 +12,18 @@ export function requestLogger(logger: Logger) {
     logger,
     genReqId(req, res) {
       const incoming = req.headers['x-request-id'];
-      const id = typeof incoming === 'string' && /^[\w-]{1,100}$/.test(incoming) ? incoming : randomUUID();
+      const id =
+        typeof incoming === 'string' && /^[\w-]{1,100}$/.test(incoming) ? incoming : randomUUID();
       res.setHeader('X-Request-Id', id);
       return id;
     },
     // Method, path and status are what an operator reads; headers would be noise and may hold secrets.
     serializers: {
-      req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+      req: (req: { id: string; method: string; url: string }) => ({
+        id: req.id,
+        method: req.method,
+        url: req.url,
+      }),
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
     customLogLevel(_req, res, err) {

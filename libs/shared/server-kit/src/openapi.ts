@@ -6,13 +6,20 @@ const errorBody = z.object({
 });
 
 function jsonSchema(schema: z.ZodType, io: 'input' | 'output'): Record<string, unknown> {
-  const { $schema: _ignored, ...rest } = z.toJSONSchema(schema, { target: 'draft-2020-12', io, unrepresentable: 'any' });
+  const { $schema: _ignored, ...rest } = z.toJSONSchema(schema, {
+    target: 'draft-2020-12',
+    io,
+    unrepresentable: 'any',
+  });
   return rest;
 }
 
 function parameters(schema: z.ZodType | undefined, location: 'path' | 'query') {
   if (!(schema instanceof z.ZodObject)) return [];
-  const properties = (jsonSchema(schema, 'input')['properties'] ?? {}) as Record<string, Record<string, unknown>>;
+  const properties = (jsonSchema(schema, 'input')['properties'] ?? {}) as Record<
+    string,
+    Record<string, unknown>
+  >;
   const required = new Set((jsonSchema(schema, 'input')['required'] as string[] | undefined) ?? []);
   return Object.entries(properties).map(([name, property]) => ({
     name,
@@ -23,7 +30,10 @@ function parameters(schema: z.ZodType | undefined, location: 'path' | 'query') {
 }
 
 /** The OpenAPI 3.1 document for the given endpoints, served under `serverUrl`. */
-export function buildOpenApiDocument(endpoints: readonly EndpointDef[], info: { title: string; version: string; serverUrl: string }) {
+export function buildOpenApiDocument(
+  endpoints: readonly EndpointDef[],
+  info: { title: string; version: string; serverUrl: string },
+) {
   const paths: Record<string, Record<string, unknown>> = {};
   for (const def of endpoints) {
     const path = def.path.replace(/:([A-Za-z0-9_]+)/g, '{$1}');
@@ -35,14 +45,22 @@ export function buildOpenApiDocument(endpoints: readonly EndpointDef[], info: { 
       'x-permission': def.permission,
       parameters: [...parameters(def.params, 'path'), ...parameters(def.query, 'query')],
       ...(def.body && {
-        requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(def.body, 'input') } } },
+        requestBody: {
+          required: true,
+          content: { 'application/json': { schema: jsonSchema(def.body, 'input') } },
+        },
       }),
       responses: {
         [status]: {
           description: 'Success',
-          ...(def.response && { content: { 'application/json': { schema: jsonSchema(def.response, 'output') } } }),
+          ...(def.response && {
+            content: { 'application/json': { schema: jsonSchema(def.response, 'output') } },
+          }),
         },
-        default: { description: 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } },
+        default: {
+          description: 'Error',
+          content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } },
+        },
       },
     };
   }
