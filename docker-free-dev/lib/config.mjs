@@ -71,6 +71,7 @@ export function loadConfig(profile) {
     LW_PROFILE: profile,
     LW_DATA_DIR: dataDir,
     APP_URL: appUrl,
+    LW_APP_URL: appUrl,
     APP_PORT: String(ports.app),
     API_PORT: String(ports.api),
     API_URL: `http://${host}:${ports.api}`,
