@@ -53,6 +53,20 @@ describe("origin 'auto'", () => {
     );
   });
 
+  it('matches or beats a 16 × 16 scan of offsets on rectilinear rooms (its per-axis optimum is exact there)', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 2000, max: 9000 }), fc.integer({ min: 2000, max: 9000 }), fc.integer({ min: 300, max: 800 }), fc.integer({ min: 20, max: 80 }), (W, H, pitch, notch) => {
+        const outline: Point[] = [[0, 0], [W, 0], [W, (H * notch) / 100], [(W * notch) / 100, (H * notch) / 100], [(W * notch) / 100, H], [0, H]];
+        const input = { outline, tile: { pitchMm: pitch }, suggestOrigin: false };
+        const auto = optimiseOrigin(input).score.smallestMm ?? Infinity;
+        let scan = -Infinity;
+        for (let a = 0; a < 16; a++) for (let b = 0; b < 16; b++) scan = Math.max(scan, layoutStats(input, { x: (a / 16) * pitch, y: (b / 16) * pitch }).smallestMm ?? Infinity);
+        expect(auto).toBeGreaterThanOrEqual(scan - 0.01);
+      }),
+      { numRuns: 25 },
+    );
+  });
+
   it('finds a better origin than a wall start that leaves a 30 mm sliver', () => {
     // 5040 mm room, 5 mm gaps: 5030 mm to tile = 10 tiles + a 30 mm sliver from a wall start.
     const room = rect(0, 0, 5040, 3000);

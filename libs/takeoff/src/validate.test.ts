@@ -157,3 +157,37 @@ describe('validateTakeoffInput', () => {
     ]);
   });
 });
+
+describe('never a crash', () => {
+  it('random point soups either validate with problems (TakeoffInputError) or compute finite results', async () => {
+    const fc = (await import('fast-check')).default;
+    const pt = fc.tuple(fc.integer({ min: -5000, max: 5000 }), fc.integer({ min: -5000, max: 5000 }));
+    fc.assert(
+      fc.property(
+        fc.array(pt, { minLength: 0, maxLength: 10 }),
+        fc.array(fc.array(pt, { minLength: 2, maxLength: 5 }), { maxLength: 3 }),
+        fc.integer({ min: 0, max: 50 }),
+        fc.integer({ min: 100, max: 1500 }),
+        fc.oneof(fc.constant<'auto'>('auto'), fc.constant<'centre'>('centre'), fc.record({ x: fc.integer(), y: fc.integer() })),
+        fc.integer({ min: -90, max: 90 }),
+        (outline, obstacles, gapMm, pitchMm, origin, layoutAngleDeg) => {
+          const input = { outline: outline as Point[], obstacles: obstacles as Point[][], gapMm, tile: { pitchMm }, origin, layoutAngleDeg };
+          const list = validateTakeoffInput(input);
+          if (list.length) {
+            expect(() => computeTakeoff(input)).toThrow(TakeoffInputError);
+            for (const p of list) expect(typeof p.field).toBe('string');
+            return;
+          }
+          const r = computeTakeoff(input);
+          for (const v of [r.netAreaM2, r.tiledAreaM2, r.perimeterMm, r.tiles.toOrder, r.labour.hours.total]) expect(Number.isFinite(v)).toBe(true);
+          expect(Number.isInteger(r.tiles.toOrder) && Number.isInteger(r.tiles.full) && Number.isInteger(r.tiles.cut)).toBe(true);
+          expect(r.tiledAreaM2).toBeLessThanOrEqual(r.netAreaM2 + 1e-9);
+          // The tiles cover exactly the tiled region.
+          const covered = r.tiles.full * pitchMm * pitchMm + r.plan.cutTiles.reduce((s, c) => s + c.areaMm2, 0);
+          expect(Math.abs(covered - r.tiledAreaM2 * 1e6)).toBeLessThan(1 + 1e-6 * r.tiledAreaM2 * 1e6 + (r.tiles.full + r.tiles.cut) * 1);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+});
