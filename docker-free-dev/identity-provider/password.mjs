@@ -1,80 +1,87 @@
 // @ts-check
-// Password hashing for the identity-provider fake.
+// Password hashing and the password rules of the identity-provider fake.
 //
-// TEMPORARY: scrypt from node:crypto (N = 2^15, r = 8, p = 1, 64-byte key), because argon2 is
-// not installed yet. The identity issue moves this to argon2id (m = 19 MiB, t = 2, p = 1 or
-// stronger, per the OWASP Password Storage Cheat Sheet). The stored format names its algorithm
-// and parameters, so `verifyPassword` can keep accepting old scrypt hashes after the switch and
-// `needsRehash` can tell the caller to upgrade them at the next successful sign-in.
-import { randomBytes, scrypt, timingSafeEqual } from 'node:crypto';
+// argon2id at OWASP's minimum: "Use Argon2id with a minimum configuration of 19 MiB of memory,
+// an iteration count of 2, and 1 degree of parallelism" (OWASP Password Storage Cheat Sheet,
+// section "Argon2id"). The `argon2` package writes the PHC string
+// `$argon2id$v=19$m=19456,t=2,p=1$<salt>$<hash>` (parameter order as the library emits it),
+// so the parameters of every stored hash can be read back and checked.
+import { randomBytes } from 'node:crypto';
+import argon2 from 'argon2';
 
-const N = 2 ** 15;
-const r = 8;
-const p = 1;
-const KEY_LENGTH = 64;
-// scrypt needs 128 * N * r bytes (32 MiB here); Node's default ceiling is exactly 32 MiB.
-const MAX_MEM = 64 * 1024 * 1024;
+/** OWASP Password Storage Cheat Sheet, Argon2id minimum: m = 19 MiB, t = 2, p = 1. */
+export const ARGON2_OPTIONS = Object.freeze({
+  type: argon2.argon2id,
+  memoryCost: 19 * 1024, // KiB, i.e. 19 MiB
+  timeCost: 2,
+  parallelism: 1,
+});
 
 /**
- * @param {string} password
- * @param {Buffer} salt
- * @param {{ N: number, r: number, p: number }} params
- * @param {number} keyLength
- * @returns {Promise<Buffer>}
+ * Length rules for a new password, counted in Unicode code points. At least 12: the length
+ * this product asks for (NIST SP 800-63B allows 8 as a floor; longer is the common advice when
+ * nothing else is enforced). At most 128 so that nobody can make the server hash megabytes.
  */
-function derive(password, salt, params, keyLength) {
-  return new Promise((resolve, reject) => {
-    scrypt(
-      password.normalize('NFKC'),
-      salt,
-      keyLength,
-      { ...params, maxmem: MAX_MEM },
-      (err, key) => (err ? reject(err) : resolve(key)),
-    );
-  });
+export const PASSWORD_RULES = Object.freeze({ minLength: 12, maxLength: 128 });
+
+/**
+ * Unicode passwords are normalised (NFKC) before hashing so that the same characters typed on
+ * two keyboards give the same hash (NIST SP 800-63B, 5.1.1.2).
+ * @param {string} password
+ */
+const normalise = (password) => password.normalize('NFKC');
+
+/**
+ * Hashes a password with argon2id at the parameters above.
+ * @param {string} password
+ * @returns {Promise<string>} a PHC string starting `$argon2id$v=19$`
+ */
+export function hashPassword(password) {
+  return argon2.hash(normalise(password), ARGON2_OPTIONS);
 }
 
 /**
- * Hashes a password as `scrypt$N=32768,r=8,p=1$<salt base64url>$<key base64url>`.
+ * Checks a password against a stored hash. Anything that is not an argon2id hash (such as the
+ * scrypt hashes of the fake's first version) never matches.
  * @param {string} password
- * @returns {Promise<string>}
- */
-export async function hashPassword(password) {
-  const salt = randomBytes(16);
-  const key = await derive(password, salt, { N, r, p }, KEY_LENGTH);
-  return `scrypt$N=${N},r=${r},p=${p}$${salt.toString('base64url')}$${key.toString('base64url')}`;
-}
-
-/**
- * @param {string} password
- * @param {string} stored a string made by `hashPassword`
+ * @param {string} stored
  * @returns {Promise<boolean>}
  */
 export async function verifyPassword(password, stored) {
-  const [algorithm, paramText, saltText, keyText] = stored.split('$');
-  if (algorithm !== 'scrypt' || !paramText || !saltText || !keyText) return false;
-  const params = Object.fromEntries(
-    paramText.split(',').map((pair) => {
-      const [name, value] = pair.split('=');
-      return [name, Number(value)];
-    }),
-  );
-  const expected = Buffer.from(keyText, 'base64url');
-  const actual = await derive(
-    password,
-    Buffer.from(saltText, 'base64url'),
-    { N: params['N'], r: params['r'], p: params['p'] },
-    expected.length,
-  );
-  return actual.length === expected.length && timingSafeEqual(actual, expected);
+  if (!isCurrentHash(stored)) return false;
+  try {
+    return await argon2.verify(stored, normalise(password));
+  } catch {
+    return false;
+  }
 }
 
 /**
- * True when a stored hash was made with weaker or other settings than today's.
- * @param {string} stored
+ * True for a hash this version can check: argon2id. Accounts with an older hash count as
+ * having no password (they are set again by the seed or an invitation).
+ * @param {string | undefined} stored
  */
-export function needsRehash(stored) {
-  return !stored.startsWith(`scrypt$N=${N},r=${r},p=${p}$`);
+export function isCurrentHash(stored) {
+  return typeof stored === 'string' && stored.startsWith('$argon2id$');
+}
+
+/**
+ * What is wrong with a new password and its repetition, in words for the person; undefined
+ * when it is fine.
+ * @param {string} password
+ * @param {string} [repeat] checked only when given
+ * @returns {string | undefined}
+ */
+export function newPasswordProblem(password, repeat) {
+  const length = [...String(password ?? '')].length;
+  if (length < PASSWORD_RULES.minLength) {
+    return `Use at least ${PASSWORD_RULES.minLength} characters.`;
+  }
+  if (length > PASSWORD_RULES.maxLength) {
+    return `Use at most ${PASSWORD_RULES.maxLength} characters.`;
+  }
+  if (repeat !== undefined && repeat !== password) return 'The two passwords are not the same.';
+  return undefined;
 }
 
 /** A hash of a random password, checked against when an e-mail is unknown so that an unknown
