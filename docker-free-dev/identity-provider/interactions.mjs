@@ -3,10 +3,14 @@
 // consent granted automatically for our own client, and friendly pages for expired sign-ins.
 import express from 'express';
 import { errors } from 'oidc-provider';
+import { normaliseEmail } from './account-rules.mjs';
+import { clientAddress, pageSecurity } from './page-security.mjs';
 import { messagePage, signInPage } from './views.mjs';
 
 const SIGN_IN_FAILED =
   'That e-mail and password do not match an account. Check both and try again.';
+/** @param {number} seconds */
+const tooManyAttempts = (seconds) => `Too many attempts. Try again in ${seconds} s.`;
 
 /**
  * @param {import('express').Express} app
@@ -14,26 +18,11 @@ const SIGN_IN_FAILED =
  *   provider: any,
  *   accounts: import('./accounts.mjs').AccountStore,
  *   firstParty: Set<string>,
+ *   limits: import('./sign-in-limits.mjs').SignInLimits,
+ *   events: import('./provider-events.mjs').EventSender,
  * }} deps
  */
-export function mountInteractions(app, { provider, accounts, firstParty }) {
-  /**
-   * @param {express.Request} _req
-   * @param {express.Response} res
-   * @param {express.NextFunction} next
-   * @returns {void}
-   */
-  const pageSecurity = (_req, res, next) => {
-    res.set({
-      'Content-Security-Policy':
-        "default-src 'none'; style-src 'self'; img-src 'self' data:; frame-ancestors 'none'; base-uri 'none'",
-      'X-Content-Type-Options': 'nosniff',
-      'Referrer-Policy': 'no-referrer',
-      'Cache-Control': 'no-store',
-    });
-    next();
-  };
-
+export function mountInteractions(app, { provider, accounts, firstParty, limits, events }) {
   app.get('/interaction/:uid', pageSecurity, async (req, res) => {
     const details = await provider.interactionDetails(req, res);
     if (details.uid !== req.params.uid) throw new errors.SessionNotFound('interaction mismatch');
@@ -76,19 +65,48 @@ export function mountInteractions(app, { provider, accounts, firstParty }) {
       }
       const email = String(req.body?.email ?? '').trim();
       const password = String(req.body?.password ?? '');
-      const account = email ? await accounts.findByEmail(email) : undefined;
-      const ok = await accounts.verifyPassword(account, password);
-      if (!account || !ok) {
-        res.status(401).send(
+      const ipAddress = clientAddress(req);
+      /** @param {number} status @param {string} error */
+      const refuse = (status, error) =>
+        res.status(status).send(
           signInPage({
             uid: details.uid,
             email,
-            error: SIGN_IN_FAILED,
+            error,
             abortUrl: `/interaction/${details.uid}/abort`,
           }),
         );
+      /** @param {'sign-in-failed' | 'sign-in-locked'} type */
+      const report = (type) =>
+        events.send({
+          type,
+          email: normaliseEmail(email).slice(0, 320),
+          ipAddress: ipAddress || null,
+          at: new Date().toISOString(),
+        });
+
+      const attempt = await limits.begin(email, ipAddress);
+      if (attempt.lockedForSeconds) {
+        res.set('Retry-After', String(attempt.lockedForSeconds));
+        refuse(429, tooManyAttempts(attempt.lockedForSeconds));
         return;
       }
+      const account = email ? await accounts.findByEmail(email) : undefined;
+      const ok = await accounts.verifyPassword(account, password);
+      if (!account || !ok) {
+        report('sign-in-failed');
+        const lockedFor = await attempt.failed();
+        if (lockedFor) {
+          // This failure used the last attempt: say so now rather than at the next try.
+          report('sign-in-locked');
+          res.set('Retry-After', String(lockedFor));
+          refuse(429, tooManyAttempts(lockedFor));
+        } else {
+          refuse(401, SIGN_IN_FAILED);
+        }
+        return;
+      }
+      await attempt.succeeded();
       await provider.interactionFinished(
         req,
         res,

@@ -3,8 +3,11 @@
 //   IDP_PORT (3400), IDP_ISSUER (http://127.0.0.1:<port>), IDP_CLIENT_ID (latchwork),
 //   IDP_CLIENT_SECRET, IDP_REDIRECT_URIS and IDP_POST_LOGOUT_REDIRECT_URIS (comma lists),
 //   IDP_TOKEN_ENDPOINT_AUTH_METHOD (client_secret_post), IDP_DATABASE_URL (accounts in
-//   PostgreSQL; a JSON file under LW_DATA_DIR otherwise), LW_DATA_DIR (<repo>/.local/data).
+//   PostgreSQL; a JSON file under LW_DATA_DIR otherwise), IDP_ADMIN_TOKEN (admin API),
+//   IDP_EVENT_URL (sign-in events; empty turns them off) and IDP_EVENT_SECRET, LW_DATA_DIR
+//   (<repo>/.local/data).
 import { fileURLToPath } from 'node:url';
+import { DEFAULT_EVENT_URL } from './provider-events.mjs';
 import { DEFAULT_CLIENT_SECRET, start } from './server.mjs';
 
 const env = process.env;
@@ -27,6 +30,10 @@ try {
     tokenEndpointAuthMethod:
       /** @type {any} */ (env['IDP_TOKEN_ENDPOINT_AUTH_METHOD']) || undefined,
     databaseUrl: env['IDP_DATABASE_URL'] || undefined,
+    adminToken: env['IDP_ADMIN_TOKEN'] || undefined,
+    // Set but empty means "send no events"; unset means the local app's default address.
+    eventUrl: env['IDP_EVENT_URL'] ?? DEFAULT_EVENT_URL,
+    eventSecret: env['IDP_EVENT_SECRET'] || undefined,
     dataDir: env['LW_DATA_DIR'] || fileURLToPath(new URL('../../.local/data', import.meta.url)),
   });
   console.log(`identity-provider listening on ${idp.url}`);

@@ -1,9 +1,10 @@
 // @ts-check
 // The identity-provider fake: a real OpenID Connect provider (oidc-provider) with the
 // authorization-code flow, discovery, userinfo with the `email` scope, RP-initiated logout, and
-// a sign-in page of our own. Consent is skipped for our own client (the product is the only
-// client). Sessions and grants survive a restart (file-adapter.mjs); accounts come from
-// accounts.mjs (PostgreSQL or a JSON file).
+// a sign-in page of our own with attempt limits. Consent is skipped for our own client (the
+// product is the only client). Sessions and grants survive a restart (file-adapter.mjs);
+// accounts and password-set tickets come from accounts.mjs (PostgreSQL or JSON files). Failed
+// sign-ins are streamed to the app (provider-events.mjs).
 import http from 'node:http';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -12,7 +13,10 @@ import Provider from 'oidc-provider';
 import { openAccounts } from './accounts.mjs';
 import { createFileStore } from './file-adapter.mjs';
 import { interactionErrors, mountInteractions } from './interactions.mjs';
+import { mountPasswordTickets } from './password-tickets.mjs';
+import { createEventSender } from './provider-events.mjs';
 import { COOKIE_NAMES, loadOrCreateSecrets, providerConfiguration } from './provider-config.mjs';
+import { createSignInLimits } from './sign-in-limits.mjs';
 
 export { COOKIE_NAMES };
 
@@ -34,9 +38,14 @@ const here = dirname(fileURLToPath(import.meta.url));
  *   `identity-provider/` subfolder
  * @property {string} [databaseUrl] accounts in PostgreSQL when set, else in a JSON file
  * @property {import('./accounts.mjs').AccountStore} [accounts] injected store (tests)
+ * @property {string} [adminToken] bearer token of the admin API; without it the API says 401
+ * @property {string} [eventUrl] where sign-in events go; empty or absent: not sent
+ * @property {string} [eventSecret] HMAC key of the events' `x-idp-signature`
+ * @property {() => Date} [now] clock for password-set tickets (tests move it forward)
  */
 
-export const DEFAULT_CLIENT_SECRET = 'latchwork-local-oidc-secret';
+/** The same local secret the app's config hands both processes (docker-free-dev/lib/config.mjs). */
+export const DEFAULT_CLIENT_SECRET = 'latchwork-local-client-secret';
 
 /**
  * @param {IdentityProviderOptions} options
@@ -82,6 +91,9 @@ export async function start(options) {
       issuer,
       ownDir,
       accounts,
+      adminToken: options.adminToken,
+      events: createEventSender({ url: options.eventUrl, secret: options.eventSecret }),
+      now: options.now ?? (() => new Date()),
       clientId,
       clientSecret,
       redirectUris,
@@ -93,7 +105,7 @@ export async function start(options) {
     if (ownsAccounts) await accounts.close();
     throw error;
   }
-  const { app, provider, store } = built;
+  const { app, provider, store, events } = built;
   handler = app;
 
   return {
@@ -107,6 +119,7 @@ export async function start(options) {
         server.closeAllConnections();
       });
       store.flush();
+      await events.settle();
       if (ownsAccounts) await accounts.close();
     },
   };
@@ -118,6 +131,9 @@ export async function start(options) {
  *   issuer: string,
  *   ownDir: string,
  *   accounts: import('./accounts.mjs').AccountStore,
+ *   adminToken: string | undefined,
+ *   events: import('./provider-events.mjs').EventSender,
+ *   now: () => Date,
  *   clientId: string,
  *   clientSecret: string,
  *   redirectUris: string[],
@@ -125,7 +141,16 @@ export async function start(options) {
  *   tokenEndpointAuthMethod: string,
  * }} settings
  */
-function createApp({ issuer, ownDir, accounts, postLogoutRedirectUris, ...client }) {
+function createApp({
+  issuer,
+  ownDir,
+  accounts,
+  adminToken,
+  events,
+  now,
+  postLogoutRedirectUris,
+  ...client
+}) {
   const store = createFileStore(join(ownDir, 'oidc-store.json'));
   const firstParty = new Set([client.clientId]);
   const fallbackLink = { href: postLogoutRedirectUris[0] ?? '/', text: 'Back to Latchwork' };
@@ -151,9 +176,20 @@ function createApp({ issuer, ownDir, accounts, postLogoutRedirectUris, ...client
     res.json({ status: 'ok', issuer });
   });
   app.use('/assets', express.static(join(here, 'public'), { maxAge: '1h', index: false }));
-  mountInteractions(app, { provider, accounts, firstParty });
+  mountInteractions(app, {
+    provider,
+    accounts,
+    firstParty,
+    limits: createSignInLimits(),
+    events,
+  });
+  // An invitation's link may send the person back only to where the app lives.
+  const allowedOrigins = [...client.redirectUris, ...postLogoutRedirectUris].map(
+    (uri) => new URL(uri).origin,
+  );
+  mountPasswordTickets(app, { accounts, issuer, adminToken, allowedOrigins, now });
   // Everything else is the OpenID Connect provider itself.
   app.use(provider.callback());
   app.use(interactionErrors(fallbackLink));
-  return { app, provider, store };
+  return { app, provider, store, events };
 }

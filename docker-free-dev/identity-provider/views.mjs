@@ -19,9 +19,10 @@ const MARK = `<svg class="mark" viewBox="0 0 32 32" aria-hidden="true" focusable
 </svg>`;
 
 /**
+ * The page frame shared by every page of the fake.
  * @param {{ title: string, body: string, head?: string }} page
  */
-function layout({ title, body, head = '' }) {
+export function layout({ title, body, head = '' }) {
   return `<!doctype html>
 <html lang="en">
 <head>
