@@ -1,14 +1,8 @@
 import { defineConfig } from 'vitest/config';
 
-// Unit tests: pure and in-process tests of apps and libraries (no services needed).
-// Tests that need the running stack live under tests/ (see tests/vitest.config.ts).
-// The web app's component tests run through Angular's unit-test builder (nx run web:test).
+// Unit tests: pure and in-process tests of the libraries (no services needed). Tests that
+// need the running stack live under tests/ (see tests/vitest.config.ts). The web app's
+// component tests run through Angular's unit-test builder (nx run web:test).
 export default defineConfig({
-  test: {
-    projects: [
-      'libs/**/vitest.config.ts',
-      'apps/api/vitest.config.ts',
-      'apps/worker/vitest.config.ts',
-    ],
-  },
+  test: { projects: ['libs/**/vitest.config.ts'] },
 });

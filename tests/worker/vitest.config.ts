@@ -1,7 +1,12 @@
 import { defineProject } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
+import tsconfigPaths from 'vite-tsconfig-paths';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
 
 export default defineProject({
+  // The @latchwork/* aliases of tsconfig.base.json, as the apps' bundler resolves them.
+  plugins: [tsconfigPaths({ root, projects: ['tsconfig.base.json'] })],
   test: {
     name: 'worker',
     root: fileURLToPath(new URL('.', import.meta.url)),
