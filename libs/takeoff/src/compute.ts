@@ -10,10 +10,21 @@ import { rasterize, type RasterResult } from './layout/raster';
 import { buildRegion, toGrid, toWorld, type TiledRegion } from './layout/region';
 import { labour, materials, ceilUnits } from './quantities/materials';
 import { perimeterQuantities } from './quantities/perimeter';
-import { acclimatisationWarning, batchWarnings, obstacleNearWallWarnings } from './quantities/warnings';
+import {
+  acclimatisationWarning,
+  batchWarnings,
+  obstacleNearWallWarnings,
+} from './quantities/warnings';
 import { zonesInFloorMm2, zonesOutsideWarnings } from './quantities/zones';
 import { resolveRates } from './rates';
-import type { ColourCount, CutTile, Point, TakeoffInput, TakeoffResult, TakeoffWarning } from './types';
+import type {
+  ColourCount,
+  CutTile,
+  Point,
+  TakeoffInput,
+  TakeoffResult,
+  TakeoffWarning,
+} from './types';
 import { TakeoffInputError, validateTakeoffInput } from './validate';
 
 /**
@@ -37,7 +48,8 @@ export function computeTakeoff(input: TakeoffInput): TakeoffResult {
   const rings = [region.outline, ...region.holes];
 
   // Origin, in the grid frame.
-  const mode = input.origin === 'auto' ? 'auto' : typeof input.origin === 'object' ? 'given' : 'centre';
+  const mode =
+    input.origin === 'auto' ? 'auto' : typeof input.origin === 'object' ? 'given' : 'centre';
   let o: { x: number; y: number };
   if (typeof input.origin === 'object') {
     const g = toGrid(input.origin.x, input.origin.y, angle);
@@ -48,10 +60,20 @@ export function computeTakeoff(input: TakeoffInput): TakeoffResult {
   }
 
   const grid = rasterize(region.edges, { ox: o.x, oy: o.y, pitch: p, geometry: true });
-  const colourer = makeColourer(input.pattern, { ox: o.x, oy: o.y, pitch: p, angleDeg: angle }, region.outline);
+  const colourer = makeColourer(
+    input.pattern,
+    { ox: o.x, oy: o.y, pitch: p, angleDeg: angle },
+    region.outline,
+  );
   const { fullRuns, fullByColour, cutColour } = colourTiles(grid, colourer);
 
-  const candidates = grid.cutCells.map((c, k) => ({ i: c.i, j: c.j, kind: c.kind, keptMm: c.keptMm, colour: cutColour[k] }));
+  const candidates = grid.cutCells.map((c, k) => ({
+    i: c.i,
+    j: c.j,
+    kind: c.kind,
+    keptMm: c.keptMm,
+    colour: cutColour[k],
+  }));
   const fromOffcut = new Set(pairOffcuts(candidates, p));
   const cutTiles: CutTile[] = grid.cutCells.map((c, k) => ({
     i: c.i,
@@ -73,7 +95,16 @@ export function computeTakeoff(input: TakeoffInput): TakeoffResult {
     const needed = full + cut - reused;
     const withOverage = ceilUnits(needed * (1 + overage / 100));
     const packs = ceilUnits(withOverage / packSize);
-    return { colour, full, cut, offcutsReused: reused, needed, toOrder: packs * packSize, packs, areaM2: (needed * p * p) / 1e6 };
+    return {
+      colour,
+      full,
+      cut,
+      offcutsReused: reused,
+      needed,
+      toOrder: packs * packSize,
+      packs,
+      areaM2: (needed * p * p) / 1e6,
+    };
   });
   const sum = (f: (c: ColourCount) => number) => byColour.reduce((s, c) => s + f(c), 0);
 
@@ -87,7 +118,8 @@ export function computeTakeoff(input: TakeoffInput): TakeoffResult {
     rates.rampStockMm,
   );
   const perimeterMm = perimeter(outline) + obstacles.reduce((s, ob) => s + perimeter(ob), 0);
-  const netAreaMm2 = Math.abs(signedArea(outline)) - obstacles.reduce((s, ob) => s + Math.abs(signedArea(ob)), 0);
+  const netAreaMm2 =
+    Math.abs(signedArea(outline)) - obstacles.reduce((s, ob) => s + Math.abs(signedArea(ob)), 0);
 
   const adhesiveZones = input.zones?.adhesive ?? [];
   const levellingZones = input.zones?.levelling ?? [];
@@ -126,9 +158,14 @@ export function computeTakeoff(input: TakeoffInput): TakeoffResult {
 
   const warnings: TakeoffWarning[] = [];
   if (grid.full + grid.cut === 0) {
-    warnings.push({ code: 'empty-layout', severity: 'warning', message: 'No tile fits: the floor is narrower than twice the gap' });
+    warnings.push({
+      code: 'empty-layout',
+      severity: 'warning',
+      message: 'No tile fits: the floor is narrower than twice the gap',
+    });
   }
-  if (slivers > 0) warnings.push(sliverWarning(input, region, rings, p, o, grid, slivers, minCut, angle, mode));
+  if (slivers > 0)
+    warnings.push(sliverWarning(input, region, rings, p, o, grid, slivers, minCut, angle, mode));
   warnings.push(...obstacleNearWallWarnings(outline, obstacles, p));
   warnings.push(
     ...zonesOutsideWarnings(
@@ -157,7 +194,11 @@ export function computeTakeoff(input: TakeoffInput): TakeoffResult {
       byColour,
       perM2: 1e6 / (p * p),
     },
-    cuts: { smallestMm: Number.isFinite(grid.smallest) ? grid.smallest : null, slivers, minCutMm: minCut },
+    cuts: {
+      smallestMm: Number.isFinite(grid.smallest) ? grid.smallest : null,
+      slivers,
+      minCutMm: minCut,
+    },
     origin: { x: originWorld[0], y: originWorld[1], mode },
     skirtingMm: per.skirtingMm,
     corners: { internal: per.internal, external: per.external },

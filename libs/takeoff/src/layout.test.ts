@@ -33,12 +33,32 @@ describe("origin 'auto'", () => {
         fc.integer({ min: 2000, max: 9000 }),
         fc.integer({ min: 2000, max: 9000 }),
         fc.integer({ min: 300, max: 800 }),
-        fc.array(fc.tuple(fc.integer({ min: 0, max: 1000 }), fc.integer({ min: 0, max: 1000 })), { maxLength: 4 }),
+        fc.array(fc.tuple(fc.integer({ min: 0, max: 1000 }), fc.integer({ min: 0, max: 1000 })), {
+          maxLength: 4,
+        }),
         (W, H, pitch, cols) => {
           const obstacles = cols
-            .map(([a, b]) => rect(500 + (a / 1000) * (W - 1400), 500 + (b / 1000) * (H - 1400), 900 + (a / 1000) * (W - 1400), 900 + (b / 1000) * (H - 1400)))
-            .filter((o, k, all) => all.slice(0, k).every((q) => Math.abs(q[0][0] - o[0][0]) >= 400 || Math.abs(q[0][1] - o[0][1]) >= 400));
-          const input = { outline: rect(0, 0, W, H), obstacles, tile: { pitchMm: pitch }, suggestOrigin: false };
+            .map(([a, b]) =>
+              rect(
+                500 + (a / 1000) * (W - 1400),
+                500 + (b / 1000) * (H - 1400),
+                900 + (a / 1000) * (W - 1400),
+                900 + (b / 1000) * (H - 1400),
+              ),
+            )
+            .filter((o, k, all) =>
+              all
+                .slice(0, k)
+                .every(
+                  (q) => Math.abs(q[0][0] - o[0][0]) >= 400 || Math.abs(q[0][1] - o[0][1]) >= 400,
+                ),
+            );
+          const input = {
+            outline: rect(0, 0, W, H),
+            obstacles,
+            tile: { pitchMm: pitch },
+            suggestOrigin: false,
+          };
           const centre = computeTakeoff(input);
           const auto = computeTakeoff({ ...input, origin: 'auto' as const });
           const c = centre.cuts.smallestMm ?? Infinity;
@@ -46,7 +66,10 @@ describe("origin 'auto'", () => {
           expect(a).toBeGreaterThanOrEqual(c - 1e-9);
           const opt = optimiseOrigin(input);
           expect(opt.score.smallestMm ?? Infinity).toBeCloseTo(a === Infinity ? Infinity : a, 6);
-          expect(layoutStats(input, opt.origin).smallestMm ?? Infinity).toBeCloseTo(a === Infinity ? Infinity : a, 6);
+          expect(layoutStats(input, opt.origin).smallestMm ?? Infinity).toBeCloseTo(
+            a === Infinity ? Infinity : a,
+            6,
+          );
         },
       ),
       { numRuns: 40 },
@@ -55,14 +78,33 @@ describe("origin 'auto'", () => {
 
   it('matches or beats a 16 × 16 scan of offsets on rectilinear rooms (its per-axis optimum is exact there)', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 2000, max: 9000 }), fc.integer({ min: 2000, max: 9000 }), fc.integer({ min: 300, max: 800 }), fc.integer({ min: 20, max: 80 }), (W, H, pitch, notch) => {
-        const outline: Point[] = [[0, 0], [W, 0], [W, (H * notch) / 100], [(W * notch) / 100, (H * notch) / 100], [(W * notch) / 100, H], [0, H]];
-        const input = { outline, tile: { pitchMm: pitch }, suggestOrigin: false };
-        const auto = optimiseOrigin(input).score.smallestMm ?? Infinity;
-        let scan = -Infinity;
-        for (let a = 0; a < 16; a++) for (let b = 0; b < 16; b++) scan = Math.max(scan, layoutStats(input, { x: (a / 16) * pitch, y: (b / 16) * pitch }).smallestMm ?? Infinity);
-        expect(auto).toBeGreaterThanOrEqual(scan - 0.01);
-      }),
+      fc.property(
+        fc.integer({ min: 2000, max: 9000 }),
+        fc.integer({ min: 2000, max: 9000 }),
+        fc.integer({ min: 300, max: 800 }),
+        fc.integer({ min: 20, max: 80 }),
+        (W, H, pitch, notch) => {
+          const outline: Point[] = [
+            [0, 0],
+            [W, 0],
+            [W, (H * notch) / 100],
+            [(W * notch) / 100, (H * notch) / 100],
+            [(W * notch) / 100, H],
+            [0, H],
+          ];
+          const input = { outline, tile: { pitchMm: pitch }, suggestOrigin: false };
+          const auto = optimiseOrigin(input).score.smallestMm ?? Infinity;
+          let scan = -Infinity;
+          for (let a = 0; a < 16; a++)
+            for (let b = 0; b < 16; b++)
+              scan = Math.max(
+                scan,
+                layoutStats(input, { x: (a / 16) * pitch, y: (b / 16) * pitch }).smallestMm ??
+                  Infinity,
+              );
+          expect(auto).toBeGreaterThanOrEqual(scan - 0.01);
+        },
+      ),
       { numRuns: 25 },
     );
   });
@@ -70,16 +112,32 @@ describe("origin 'auto'", () => {
   it('finds a better origin than a wall start that leaves a 30 mm sliver', () => {
     // 5040 mm room, 5 mm gaps: 5030 mm to tile = 10 tiles + a 30 mm sliver from a wall start.
     const room = rect(0, 0, 5040, 3000);
-    const wall = computeTakeoff({ outline: room, tile: { pitchMm: 500 }, gapMm: 5, origin: { x: 5, y: 5 } });
+    const wall = computeTakeoff({
+      outline: room,
+      tile: { pitchMm: 500 },
+      gapMm: 5,
+      origin: { x: 5, y: 5 },
+    });
     expect(wall.cuts.slivers).toBeGreaterThan(0);
     const slivers = wall.warnings.find((w) => w.code === 'slivers');
     expect(slivers?.data?.['suggestedOrigin']).toBeDefined();
     expect(slivers?.message).toMatch(/removes them/);
-    const auto = computeTakeoff({ outline: room, tile: { pitchMm: 500 }, gapMm: 5, origin: 'auto' });
+    const auto = computeTakeoff({
+      outline: room,
+      tile: { pitchMm: 500 },
+      gapMm: 5,
+      origin: 'auto',
+    });
     expect(auto.cuts.slivers).toBe(0);
     expect(auto.cuts.smallestMm).toBeGreaterThan(100);
     // 0° and 90° are the same grid for square tiles: rotating the whole layout by 90° changes nothing.
-    const turned = computeTakeoff({ outline: room, tile: { pitchMm: 500 }, gapMm: 5, origin: 'auto', layoutAngleDeg: 90 });
+    const turned = computeTakeoff({
+      outline: room,
+      tile: { pitchMm: 500 },
+      gapMm: 5,
+      origin: 'auto',
+      layoutAngleDeg: 90,
+    });
     expect(turned.tiles.full + turned.tiles.cut).toBe(auto.tiles.full + auto.tiles.cut);
     expect(turned.cuts.smallestMm).toBeCloseTo(auto.cuts.smallestMm ?? 0, 6);
   });
@@ -88,7 +146,12 @@ describe("origin 'auto'", () => {
 describe('offcut reuse', () => {
   it('pairs a 100 mm left-wall cut with a 100 mm right-wall cut in the same row (saves one tile per row)', () => {
     // 5200 mm wide, no gap, grid lines at −400 + 500k: pieces of 100 at both walls, 10 rows.
-    const r = computeTakeoff({ outline: rect(0, 0, 5200, 5000), tile: { pitchMm: 500 }, gapMm: 0, origin: { x: -400, y: 0 } });
+    const r = computeTakeoff({
+      outline: rect(0, 0, 5200, 5000),
+      tile: { pitchMm: 500 },
+      gapMm: 0,
+      origin: { x: -400, y: 0 },
+    });
     expect(r.tiles.full).toBe(100);
     expect(r.tiles.cut).toBe(20);
     expect(r.tiles.offcutsReused).toBe(10);
@@ -97,14 +160,24 @@ describe('offcut reuse', () => {
   });
 
   it('does not pair cuts whose widths add up to more than a tile', () => {
-    const r = computeTakeoff({ outline: rect(0, 0, 5700, 5000), tile: { pitchMm: 500 }, gapMm: 0, origin: { x: -150, y: 0 } });
+    const r = computeTakeoff({
+      outline: rect(0, 0, 5700, 5000),
+      tile: { pitchMm: 500 },
+      gapMm: 0,
+      origin: { x: -150, y: 0 },
+    });
     // Pieces 350 and 350: the offcut of one (150) cannot fill the other.
     expect(r.tiles.cut).toBe(20);
     expect(r.tiles.offcutsReused).toBe(0);
   });
 
   it('pairs top and bottom cuts in the same column', () => {
-    const r = computeTakeoff({ outline: rect(0, 0, 5000, 5200), tile: { pitchMm: 500 }, gapMm: 0, origin: { x: 0, y: -400 } });
+    const r = computeTakeoff({
+      outline: rect(0, 0, 5000, 5200),
+      tile: { pitchMm: 500 },
+      gapMm: 0,
+      origin: { x: 0, y: -400 },
+    });
     expect(r.tiles.offcutsReused).toBe(10);
   });
 });
@@ -113,7 +186,10 @@ describe('patterns', () => {
   const room = rect(0, 0, 4000, 4000);
   const base = { outline: room, tile: { pitchMm: 500 }, gapMm: 0, origin: { x: 0, y: 0 } };
   it('chequer: 64 tiles split 32 / 32', () => {
-    const r = computeTakeoff({ ...base, pattern: { kind: 'chequer', colours: ['black', 'yellow'] } });
+    const r = computeTakeoff({
+      ...base,
+      pattern: { kind: 'chequer', colours: ['black', 'yellow'] },
+    });
     expect(r.tiles.byColour.map((c) => [c.colour, c.full])).toEqual([
       ['black', 32],
       ['yellow', 32],
@@ -127,14 +203,23 @@ describe('patterns', () => {
   });
 
   it('stripes of two tiles along rows', () => {
-    const r = computeTakeoff({ ...base, pattern: { kind: 'stripes', colours: ['grey', 'blue'], widthTiles: 2 } });
+    const r = computeTakeoff({
+      ...base,
+      pattern: { kind: 'stripes', colours: ['grey', 'blue'], widthTiles: 2 },
+    });
     expect(r.tiles.byColour.map((c) => c.full)).toEqual([32, 32]);
   });
 
   it('a border of 1 row around an 8 × 8 floor is 28 tiles; 2 rows is 48', () => {
-    const one = computeTakeoff({ ...base, pattern: { kind: 'border', rows: 1, borderColour: 'red', fieldColour: 'grey' } });
+    const one = computeTakeoff({
+      ...base,
+      pattern: { kind: 'border', rows: 1, borderColour: 'red', fieldColour: 'grey' },
+    });
     expect(one.tiles.byColour.find((c) => c.colour === 'red')?.full).toBe(28);
-    const two = computeTakeoff({ ...base, pattern: { kind: 'border', rows: 2, borderColour: 'red', fieldColour: 'grey' } });
+    const two = computeTakeoff({
+      ...base,
+      pattern: { kind: 'border', rows: 2, borderColour: 'red', fieldColour: 'grey' },
+    });
     expect(two.tiles.byColour.find((c) => c.colour === 'red')?.full).toBe(48);
     expect(two.tiles.byColour.find((c) => c.colour === 'grey')?.full).toBe(16);
   });
@@ -142,7 +227,11 @@ describe('patterns', () => {
   it('painted bays take the colour of tiles whose centre is inside', () => {
     const r = computeTakeoff({
       ...base,
-      pattern: { kind: 'bays', baseColour: 'grey', bays: [{ polygon: rect(0, 0, 2000, 1000), colour: 'yellow' }] },
+      pattern: {
+        kind: 'bays',
+        baseColour: 'grey',
+        bays: [{ polygon: rect(0, 0, 2000, 1000), colour: 'yellow' }],
+      },
     });
     expect(r.tiles.byColour.map((c) => [c.colour, c.full])).toEqual([
       ['grey', 56],
@@ -151,7 +240,12 @@ describe('patterns', () => {
   });
 
   it('orders per colour with overage and whole packs', () => {
-    const r = computeTakeoff({ ...base, packSize: 10, overagePct: 5, pattern: { kind: 'chequer', colours: ['black', 'yellow'] } });
+    const r = computeTakeoff({
+      ...base,
+      packSize: 10,
+      overagePct: 5,
+      pattern: { kind: 'chequer', colours: ['black', 'yellow'] },
+    });
     // 32 needed + 5 % = 33.6 → 34 → 4 packs of 10 = 40 per colour.
     expect(r.tiles.byColour.map((c) => [c.toOrder, c.packs])).toEqual([
       [40, 4],
@@ -164,8 +258,13 @@ describe('patterns', () => {
 
 describe('angled layouts and plan geometry', () => {
   it('a diagonal (45°) layout covers the same area and its cut pieces lie in the room', () => {
-    const r = computeTakeoff({ outline: rect(0, 0, 4000, 3000), tile: { pitchMm: 500 }, gapMm: 5, layoutAngleDeg: 45 });
-    expect(r.tiledAreaM2).toBeCloseTo(3990 * 2990 / 1e6, 9);
+    const r = computeTakeoff({
+      outline: rect(0, 0, 4000, 3000),
+      tile: { pitchMm: 500 },
+      gapMm: 5,
+      layoutAngleDeg: 45,
+    });
+    expect(r.tiledAreaM2).toBeCloseTo((3990 * 2990) / 1e6, 9);
     const full = r.tiles.full * 0.25;
     const cutArea = r.plan.cutTiles.reduce((s, c) => s + c.areaMm2, 0) / 1e6;
     expect(full + cutArea).toBeCloseTo(r.tiledAreaM2, 6);
@@ -178,13 +277,23 @@ describe('angled layouts and plan geometry', () => {
       }
     }
     const corners = cellCorners(r.plan, 0, 0);
-    expect(Math.hypot(corners[1][0] - corners[0][0], corners[1][1] - corners[0][1])).toBeCloseTo(500, 9);
+    expect(Math.hypot(corners[1][0] - corners[0][0], corners[1][1] - corners[0][1])).toBeCloseTo(
+      500,
+      9,
+    );
   });
 
   it('a round room given as a polyline works, corners of facets are not counted', () => {
     const n = 64;
-    const circle: Point[] = Array.from({ length: n }, (_, k) => [3000 * Math.cos((2 * Math.PI * k) / n), 3000 * Math.sin((2 * Math.PI * k) / n)]);
-    const r = computeTakeoff({ outline: circle, tile: { pitchMm: 500 }, rates: { cornerMinTurnDeg: 10 } });
+    const circle: Point[] = Array.from({ length: n }, (_, k) => [
+      3000 * Math.cos((2 * Math.PI * k) / n),
+      3000 * Math.sin((2 * Math.PI * k) / n),
+    ]);
+    const r = computeTakeoff({
+      outline: circle,
+      tile: { pitchMm: 500 },
+      rates: { cornerMinTurnDeg: 10 },
+    });
     expect(r.corners).toEqual({ internal: 0, external: 0 });
     expect(r.tiledAreaM2).toBeGreaterThan(27);
     expect(r.tiles.full + r.tiles.cut).toBeGreaterThan(27 * 4);
@@ -192,11 +301,21 @@ describe('angled layouts and plan geometry', () => {
 });
 
 describe('perimeter quantities, materials, hours and warnings', () => {
-  const L: Point[] = [[0, 0], [8000, 0], [8000, 4000], [4000, 4000], [4000, 6000], [0, 6000]];
+  const L: Point[] = [
+    [0, 0],
+    [8000, 0],
+    [8000, 4000],
+    [4000, 4000],
+    [4000, 6000],
+    [0, 6000],
+  ];
   const r = computeTakeoff({
     outline: L,
     obstacles: [rect(2000, 2000, 2400, 2400), rect(7500, 1000, 7800, 1300)],
-    doorways: [{ from: [1000, 0], to: [2000, 0], ramp: true }, { from: [8000, 1000], to: [8000, 1800] }],
+    doorways: [
+      { from: [1000, 0], to: [2000, 0], ramp: true },
+      { from: [8000, 1000], to: [8000, 1800] },
+    ],
     tile: { pitchMm: 500 },
     zones: {
       adhesive: [rect(0, 0, 2000, 2000), rect(7000, -500, 9000, 500)],
@@ -241,7 +360,9 @@ describe('perimeter quantities, materials, hours and warnings', () => {
     const near = r.warnings.find((w) => w.code === 'obstacle-near-wall');
     expect(near?.data?.['obstacle']).toBe(1);
     expect(codes).toContain('zone-outside-floor');
-    expect(r.warnings.find((w) => w.code === 'zone-outside-floor')?.message).toMatch(/zones\.adhesive\[1\]/);
+    expect(r.warnings.find((w) => w.code === 'zone-outside-floor')?.message).toMatch(
+      /zones\.adhesive\[1\]/,
+    );
     expect(codes).toContain('acclimatisation');
     expect(r.warnings.find((w) => w.code === 'acclimatisation')?.message).toMatch(/24 h.*15 °C/);
     expect(codes).not.toContain('production-batch');

@@ -3,7 +3,11 @@ import { toWorld } from './layout/region';
 import type { Point, TakeoffPlan } from './types';
 
 /** The four corners (world mm, counter-clockwise) of grid cell (i, j). */
-export function cellCorners(plan: Pick<TakeoffPlan, 'origin' | 'pitchMm' | 'angleDeg'>, i: number, j: number): Point[] {
+export function cellCorners(
+  plan: Pick<TakeoffPlan, 'origin' | 'pitchMm' | 'angleDeg'>,
+  i: number,
+  j: number,
+): Point[] {
   const { origin, pitchMm: p, angleDeg } = plan;
   const corner = (a: number, b: number): Point => {
     const w = toWorld(a * p, b * p, angleDeg);
@@ -13,7 +17,10 @@ export function cellCorners(plan: Pick<TakeoffPlan, 'origin' | 'pitchMm' | 'angl
 }
 
 /** Calls `visit` for every full tile in the plan with its cell and colour name. */
-export function forEachFullTile(plan: TakeoffPlan, visit: (i: number, j: number, colour: string) => void): void {
+export function forEachFullTile(
+  plan: TakeoffPlan,
+  visit: (i: number, j: number, colour: string) => void,
+): void {
   const runs = plan.fullRuns;
   for (let r = 0; r < runs.length; r += 4) {
     for (let i = runs[r]; i < runs[r + 1]; i++) visit(i, runs[r + 2], plan.colours[runs[r + 3]]);

@@ -15,7 +15,11 @@ type Ring = Point[];
 
 // ---- independent reference -------------------------------------------------------------
 
-const area = (r: Ring) => r.reduce((s, p, i) => s + (p[0] * r[(i + 1) % r.length][1] - r[(i + 1) % r.length][0] * p[1]), 0) / 2;
+const area = (r: Ring) =>
+  r.reduce(
+    (s, p, i) => s + (p[0] * r[(i + 1) % r.length][1] - r[(i + 1) % r.length][0] * p[1]),
+    0,
+  ) / 2;
 const ccw = (r: Ring): Ring => (area(r) < 0 ? [...r].reverse() : [...r]);
 
 /** Mitred offset by intersecting the two shifted edge lines at each vertex (d > 0 outward of a CCW ring). */
@@ -32,14 +36,16 @@ function mitreOffset(r: Ring, d: number): Ring {
     const e1 = shifted[(i + n - 1) % n];
     const e2 = shifted[i];
     const det = e1.dx * -e2.dy - e1.dy * -e2.dx;
-    if (Math.abs(det) < 1e-9 * Math.hypot(e1.dx, e1.dy) * Math.hypot(e2.dx, e2.dy)) return [e2.px, e2.py];
+    if (Math.abs(det) < 1e-9 * Math.hypot(e1.dx, e1.dy) * Math.hypot(e2.dx, e2.dy))
+      return [e2.px, e2.py];
     const t = ((e2.px - e1.px) * -e2.dy - (e2.py - e1.py) * -e2.dx) / det;
     return [e1.px + t * e1.dx, e1.py + t * e1.dy];
   });
 }
 
 function segCross(a: Point, b: Point, c: Point, d: Point): boolean {
-  const o = (p: Point, q: Point, r: Point) => (q[0] - p[0]) * (r[1] - p[1]) - (q[1] - p[1]) * (r[0] - p[0]);
+  const o = (p: Point, q: Point, r: Point) =>
+    (q[0] - p[0]) * (r[1] - p[1]) - (q[1] - p[1]) * (r[0] - p[0]);
   return o(a, b, c) * o(a, b, d) < 0 && o(c, d, a) * o(c, d, b) < 0;
 }
 function isSimple(r: Ring): boolean {
@@ -54,7 +60,11 @@ function isSimple(r: Ring): boolean {
 }
 
 const mpArea = (mp: pc.MultiPolygon) =>
-  mp.reduce((s, poly) => s + poly.reduce((t, ring, k) => t + (k === 0 ? 1 : -1) * Math.abs(area(ring as Ring)), 0), 0);
+  mp.reduce(
+    (s, poly) =>
+      s + poly.reduce((t, ring, k) => t + (k === 0 ? 1 : -1) * Math.abs(area(ring as Ring)), 0),
+    0,
+  );
 
 interface Reference {
   full: number;
@@ -68,11 +78,27 @@ interface Reference {
 }
 
 /** Brute force: clip every tile of the grid against the region. */
-function bruteForce(outline: Ring, obstacles: Ring[], gap: number, pitch: number, ox: number, oy: number, minCut: number): Reference {
+function bruteForce(
+  outline: Ring,
+  obstacles: Ring[],
+  gap: number,
+  pitch: number,
+  ox: number,
+  oy: number,
+  minCut: number,
+): Reference {
   const o = mitreOffset(ccw(outline), -gap);
   const holes = obstacles.map((h) => mitreOffset(ccw(h), gap));
   const region = holes.length ? pc.difference([o], ...holes.map((h) => [h])) : [[o]];
-  const res: Reference = { full: 0, cut: 0, smallest: Infinity, slivers: 0, area: mpArea(region as pc.MultiPolygon), borderline: 0, cells: new Map() };
+  const res: Reference = {
+    full: 0,
+    cut: 0,
+    smallest: Infinity,
+    slivers: 0,
+    area: mpArea(region as pc.MultiPolygon),
+    borderline: 0,
+    cells: new Map(),
+  };
   const xs = o.map((p) => p[0]);
   const ys = o.map((p) => p[1]);
   const i0 = Math.floor((Math.min(...xs) - ox) / pitch) - 1;
@@ -84,7 +110,14 @@ function bruteForce(outline: Ring, obstacles: Ring[], gap: number, pitch: number
     for (let i = i0; i <= i1; i++) {
       const x0 = ox + i * pitch;
       const y0 = oy + j * pitch;
-      const cell: pc.Polygon = [[[x0, y0], [x0 + pitch, y0], [x0 + pitch, y0 + pitch], [x0, y0 + pitch]]];
+      const cell: pc.Polygon = [
+        [
+          [x0, y0],
+          [x0 + pitch, y0],
+          [x0 + pitch, y0 + pitch],
+          [x0, y0 + pitch],
+        ],
+      ];
       const inter = pc.intersection(cell, region as pc.MultiPolygon);
       const a = mpArea(inter);
       if (Math.abs(a - full) < 1e-4 || Math.abs(a - 1) < 1e-4) res.borderline++;
@@ -103,7 +136,9 @@ function bruteForce(outline: Ring, obstacles: Ring[], gap: number, pitch: number
           return { a: mpArea([poly]), size: Math.min(w, h) };
         });
         const real = pieces.filter((p) => p.a >= 1);
-        const size = real.length ? Math.min(...real.map((p) => p.size)) : pieces.sort((u, v) => v.a - u.a)[0].size;
+        const size = real.length
+          ? Math.min(...real.map((p) => p.size))
+          : pieces.sort((u, v) => v.a - u.a)[0].size;
         res.smallest = Math.min(res.smallest, size);
         if (size < minCut) res.slivers++;
       }
@@ -117,7 +152,11 @@ function attempt<T>(f: () => T): T | null {
   try {
     return f();
   } catch (e) {
-    if (e instanceof Error && /Unable to (complete output ring|find segment)|SweepLine|infinite loop/i.test(e.message)) return null;
+    if (
+      e instanceof Error &&
+      /Unable to (complete output ring|find segment)|SweepLine|infinite loop/i.test(e.message)
+    )
+      return null;
     throw e;
   }
 }
@@ -128,7 +167,17 @@ function check(input: TakeoffInput & { origin: { x: number; y: number } }): void
   const gap = input.gapMm ?? 5;
   const p = input.tile.pitchMm;
   const minCut = p / 5;
-  const ref = attempt(() => bruteForce(input.outline, input.obstacles ?? [], gap, p, input.origin.x, input.origin.y, minCut));
+  const ref = attempt(() =>
+    bruteForce(
+      input.outline,
+      input.obstacles ?? [],
+      gap,
+      p,
+      input.origin.x,
+      input.origin.y,
+      minCut,
+    ),
+  );
   fc.pre(ref !== null);
   const got = computeTakeoff(input);
   expect(got.tiledAreaM2 * 1e6).toBeCloseTo(ref.area, 2);
@@ -148,7 +197,8 @@ function check(input: TakeoffInput & { origin: { x: number; y: number } }): void
   // Cell by cell, too.
   const mine = new Map<string, string>();
   const runs = got.plan.fullRuns;
-  for (let r = 0; r < runs.length; r += 4) for (let i = runs[r]; i < runs[r + 1]; i++) mine.set(`${i},${runs[r + 2]}`, 'full');
+  for (let r = 0; r < runs.length; r += 4)
+    for (let i = runs[r]; i < runs[r + 1]; i++) mine.set(`${i},${runs[r + 2]}`, 'full');
   for (const c of got.plan.cutTiles) mine.set(`${c.i},${c.j}`, 'cut');
   expect(mine).toEqual(ref.cells);
 }
@@ -162,7 +212,10 @@ const gridArb = fc.record({
   fy: fc.double({ min: 0, max: 1, noNaN: true, maxExcluded: true }),
 });
 
-const notch = (max: number) => fc.option(fc.tuple(fc.integer({ min: 150, max }), fc.integer({ min: 150, max })), { nil: undefined });
+const notch = (max: number) =>
+  fc.option(fc.tuple(fc.integer({ min: 150, max }), fc.integer({ min: 150, max })), {
+    nil: undefined,
+  });
 
 /** Rectangle with optional rectangular notches at its corners, plus rectangular columns. */
 const rectilinearFloor = fc
@@ -171,7 +224,12 @@ const rectilinearFloor = fc
     H: fc.integer({ min: 1500, max: 7000 }),
     notches: fc.tuple(notch(600), notch(600), notch(600), notch(600)),
     columns: fc.array(
-      fc.record({ x: fc.integer({ min: 0, max: 1000 }), y: fc.integer({ min: 0, max: 1000 }), w: fc.integer({ min: 100, max: 600 }), h: fc.integer({ min: 100, max: 600 }) }),
+      fc.record({
+        x: fc.integer({ min: 0, max: 1000 }),
+        y: fc.integer({ min: 0, max: 1000 }),
+        w: fc.integer({ min: 100, max: 600 }),
+        h: fc.integer({ min: 100, max: 600 }),
+      }),
       { minLength: 1, maxLength: 8 },
     ),
     grid: gridArb,
@@ -197,11 +255,17 @@ const rectilinearFloor = fc
       const x0 = Math.round((c.x / 1000) * (W - c.w));
       const y0 = Math.round((c.y / 1000) * (H - c.h));
       const box = [x0, y0, x0 + c.w, y0 + c.h];
-      const hits = (b: number[]) => box[0] < b[2] && b[0] < box[2] && box[1] < b[3] && b[1] < box[3];
+      const hits = (b: number[]) =>
+        box[0] < b[2] && b[0] < box[2] && box[1] < b[3] && b[1] < box[3];
       if (notchBoxes.some(hits) || boxes.some(hits)) continue;
       boxes.push(box);
     }
-    const obstacles: Ring[] = boxes.map(([x0, y0, x1, y1]) => [[x0, y0], [x1, y0], [x1, y1], [x0, y1]]);
+    const obstacles: Ring[] = boxes.map(([x0, y0, x1, y1]) => [
+      [x0, y0],
+      [x1, y0],
+      [x1, y1],
+      [x0, y1],
+    ]);
     return { outline: pts, obstacles, grid };
   });
 
@@ -213,7 +277,13 @@ const angledFloor = fc
     radii: fc.array(fc.double({ min: 0.55, max: 1, noNaN: true }), { minLength: 9, maxLength: 9 }),
     R: fc.integer({ min: 1500, max: 4000 }),
     obstacles: fc.array(
-      fc.record({ r: fc.double({ min: 0, max: 0.5, noNaN: true }), t: fc.double({ min: 0, max: 6.28, noNaN: true }), size: fc.integer({ min: 150, max: 500 }), rot: fc.double({ min: 0, max: 6.28, noNaN: true }), sides: fc.integer({ min: 3, max: 4 }) }),
+      fc.record({
+        r: fc.double({ min: 0, max: 0.5, noNaN: true }),
+        t: fc.double({ min: 0, max: 6.28, noNaN: true }),
+        size: fc.integer({ min: 150, max: 500 }),
+        rot: fc.double({ min: 0, max: 6.28, noNaN: true }),
+        sides: fc.integer({ min: 3, max: 4 }),
+      }),
       { minLength: 1, maxLength: 3 },
     ),
     grid: gridArb,
@@ -231,7 +301,10 @@ const angledFloor = fc
       const cy = o.r * R * 0.5 * Math.sin(o.t);
       return Array.from({ length: o.sides }, (_, k) => {
         const a = o.rot + (k * 2 * Math.PI) / o.sides;
-        return [Math.round(cx + (o.size / 2) * Math.cos(a)), Math.round(cy + (o.size / 2) * Math.sin(a))] as Point;
+        return [
+          Math.round(cx + (o.size / 2) * Math.cos(a)),
+          Math.round(cy + (o.size / 2) * Math.sin(a)),
+        ] as Point;
       });
     });
     return { outline, obstacles: obs, grid };
@@ -246,7 +319,8 @@ function valid(outline: Ring, obstacles: Ring[], gap: number): boolean {
     // Inside the outline, with a millimetre to spare, and not overlapping another obstacle.
     const inside = pc.difference([ob], [outline]);
     if (mpArea(inside) > 1e-6) return false;
-    for (let m = 0; m < k; m++) if (mpArea(pc.intersection([ob], [obstacles[m]])) > 1e-6) return false;
+    for (let m = 0; m < k; m++)
+      if (mpArea(pc.intersection([ob], [obstacles[m]])) > 1e-6) return false;
   }
   return true;
 }
@@ -257,7 +331,9 @@ function expectNotVacuous(): void {
   expect(stats.compared).toBeGreaterThanOrEqual(180);
   expect(stats.cutCells).toBeGreaterThan(stats.compared * 5);
   expect(stats.withObstacles).toBeGreaterThan(100);
-  console.info(`brute force: ${stats.compared}/${stats.runs} floors compared cell by cell, ${stats.cells} tiles, ${stats.cutCells} cut`);
+  console.info(
+    `brute force: ${stats.compared}/${stats.runs} floors compared cell by cell, ${stats.cells} tiles, ${stats.cutCells} cut`,
+  );
   Object.assign(stats, { runs: 0, compared: 0, cells: 0, cutCells: 0, withObstacles: 0 });
 }
 
@@ -266,7 +342,14 @@ describe('layout counts agree with per-tile clipping by polygon-clipping (brute 
     fc.assert(
       fc.property(rectilinearFloor, ({ outline, obstacles, grid }) => {
         fc.pre(attempt(() => valid(outline, obstacles, grid.gap)) === true);
-        check({ outline, obstacles, tile: { pitchMm: grid.pitch }, gapMm: grid.gap, origin: { x: grid.fx * grid.pitch, y: grid.fy * grid.pitch }, suggestOrigin: false });
+        check({
+          outline,
+          obstacles,
+          tile: { pitchMm: grid.pitch },
+          gapMm: grid.gap,
+          origin: { x: grid.fx * grid.pitch, y: grid.fy * grid.pitch },
+          suggestOrigin: false,
+        });
       }),
       { numRuns: 200 },
     );
@@ -277,7 +360,14 @@ describe('layout counts agree with per-tile clipping by polygon-clipping (brute 
     fc.assert(
       fc.property(angledFloor, ({ outline, obstacles, grid }) => {
         fc.pre(attempt(() => valid(outline, obstacles, grid.gap)) === true);
-        check({ outline, obstacles, tile: { pitchMm: grid.pitch }, gapMm: grid.gap, origin: { x: grid.fx * grid.pitch, y: grid.fy * grid.pitch }, suggestOrigin: false });
+        check({
+          outline,
+          obstacles,
+          tile: { pitchMm: grid.pitch },
+          gapMm: grid.gap,
+          origin: { x: grid.fx * grid.pitch, y: grid.fy * grid.pitch },
+          suggestOrigin: false,
+        });
       }),
       { numRuns: 200 },
     );

@@ -84,11 +84,7 @@ export interface TakeoffProblem {
 /** How a cut piece was cut, for offcut reuse: a straight cut across the whole tile. */
 export type CutKind =
   /** Full height, keeps the tile's left part (it meets the field on its left). */
-  | 'left-part'
-  | 'right-part'
-  | 'bottom-part'
-  | 'top-part'
-  | 'shaped';
+  'left-part' | 'right-part' | 'bottom-part' | 'top-part' | 'shaped';
 
 export interface CutTile {
   /** Grid column and row of the cell. */

@@ -9,7 +9,11 @@ const ZERO_AREA_MM2 = 1;
 export function checkRing(raw: Point[], field: string, out: TakeoffProblem[]): Point[] | null {
   const ring = cleanRing(raw);
   if (ring.length < 3) {
-    out.push({ field, message: `needs at least 3 distinct points (has ${ring.length})`, point: ring[0] });
+    out.push({
+      field,
+      message: `needs at least 3 distinct points (has ${ring.length})`,
+      point: ring[0],
+    });
     return null;
   }
   if (collinear(ring)) {
@@ -74,7 +78,12 @@ function segments(ring: Point[]): Seg[] {
 }
 
 /** Pairs of segments whose boxes overlap (within eps), found by a sweep on y. */
-function forEachCandidatePair(s1: Seg[], s2: Seg[] | null, eps: number, visit: (p: Seg, q: Seg) => Point | null): Point | null {
+function forEachCandidatePair(
+  s1: Seg[],
+  s2: Seg[] | null,
+  eps: number,
+  visit: (p: Seg, q: Seg) => Point | null,
+): Point | null {
   const all = s2 ? s1.concat(s2) : s1;
   const n1 = s1.length;
   const order = all.map((_, i) => i).sort((p, q) => all[p].minY - all[q].minY);
@@ -82,7 +91,8 @@ function forEachCandidatePair(s1: Seg[], s2: Seg[] | null, eps: number, visit: (
   for (const k of order) {
     const s = all[k];
     let m = 0;
-    for (let q = 0; q < active.length; q++) if (all[active[q]].maxY >= s.minY - eps) active[m++] = active[q];
+    for (let q = 0; q < active.length; q++)
+      if (all[active[q]].maxY >= s.minY - eps) active[m++] = active[q];
     active.length = m;
     for (let q = 0; q < m; q++) {
       const a = active[q];
@@ -115,7 +125,8 @@ export function selfIntersection(ring: Point[]): Point | null {
       const vy = second.b[1] - second.a[1];
       const cross = ux * vy - uy * vx;
       const dot = ux * vx + uy * vy;
-      if (Math.abs(cross) <= 1e-12 * Math.hypot(ux, uy) * Math.hypot(vx, vy) && dot < 0) return first.b;
+      if (Math.abs(cross) <= 1e-12 * Math.hypot(ux, uy) * Math.hypot(vx, vy) && dot < 0)
+        return first.b;
       return null;
     }
     return segmentsTouch(p.a, p.b, q.a, q.b, eps);
@@ -127,7 +138,14 @@ export function selfIntersection(ring: Point[]): Point | null {
  * touching (a column against a wall, two plinths side by side) is allowed and only a real
  * crossing counts.
  */
-export function findRingTouch(a: Point[], b: Point[], eps: number, properOnly: boolean): Point | null {
+export function findRingTouch(
+  a: Point[],
+  b: Point[],
+  eps: number,
+  properOnly: boolean,
+): Point | null {
   // segmentsTouch with a negative tolerance reports proper crossings only.
-  return forEachCandidatePair(segments(a), segments(b), eps, (p, q) => segmentsTouch(p.a, p.b, q.a, q.b, properOnly ? -1 : eps));
+  return forEachCandidatePair(segments(a), segments(b), eps, (p, q) =>
+    segmentsTouch(p.a, p.b, q.a, q.b, properOnly ? -1 : eps),
+  );
 }

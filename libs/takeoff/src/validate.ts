@@ -46,17 +46,28 @@ function readRing(v: unknown, field: string, out: TakeoffProblem[]): Point[] | n
   for (let i = 0; i < v.length; i++) {
     const p = v[i];
     if (!Array.isArray(p) || p.length !== 2 || !isNum(p[0]) || !isNum(p[1])) {
-      out.push({ field: `${field}[${i}]`, message: 'must be a point [x, y] of finite numbers (mm)' });
+      out.push({
+        field: `${field}[${i}]`,
+        message: 'must be a point [x, y] of finite numbers (mm)',
+      });
       return null;
     }
   }
   return v as Point[];
 }
 
-function checkRange(v: unknown, field: string, min: number, max: number, out: TakeoffProblem[], unit = 'mm'): void {
+function checkRange(
+  v: unknown,
+  field: string,
+  min: number,
+  max: number,
+  out: TakeoffProblem[],
+  unit = 'mm',
+): void {
   if (v === undefined) return;
   if (!isNum(v)) out.push({ field, message: 'must be a number' });
-  else if (v < min || v > max) out.push({ field, message: `must be between ${min} and ${max} ${unit} (got ${v})` });
+  else if (v < min || v > max)
+    out.push({ field, message: `must be between ${min} and ${max} ${unit} (got ${v})` });
 }
 
 /** All problems with the input; an empty list means computeTakeoff will accept it. */
@@ -68,7 +79,8 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
   const tile = input['tile'];
   let pitch = NaN;
   if (!isObj(tile)) out.push({ field: 'tile', message: 'must be an object with pitchMm' });
-  else if (!isNum(tile['pitchMm'])) out.push({ field: 'tile.pitchMm', message: 'must be a number' });
+  else if (!isNum(tile['pitchMm']))
+    out.push({ field: 'tile.pitchMm', message: 'must be a number' });
   else {
     pitch = tile['pitchMm'];
     checkRange(pitch, 'tile.pitchMm', LIMITS.minPitchMm, LIMITS.maxPitchMm, out);
@@ -81,10 +93,14 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
   }
   const minCut = input['minCutMm'];
   if (minCut !== undefined && (!isNum(minCut) || minCut < 0 || (isNum(pitch) && minCut >= pitch))) {
-    out.push({ field: 'minCutMm', message: 'must be a number from 0 up to (not including) the pitch' });
+    out.push({
+      field: 'minCutMm',
+      message: 'must be a number from 0 up to (not including) the pitch',
+    });
   }
   const angle = input['layoutAngleDeg'];
-  if (angle !== undefined && !isNum(angle)) out.push({ field: 'layoutAngleDeg', message: 'must be a number' });
+  if (angle !== undefined && !isNum(angle))
+    out.push({ field: 'layoutAngleDeg', message: 'must be a number' });
   const origin = input['origin'];
   if (
     origin !== undefined &&
@@ -95,7 +111,8 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
     out.push({ field: 'origin', message: "must be 'auto', 'centre' or { x, y } in mm" });
   }
   for (const flag of ['skirtObstacles', 'suggestOrigin']) {
-    if (input[flag] !== undefined && typeof input[flag] !== 'boolean') out.push({ field: flag, message: 'must be true or false' });
+    if (input[flag] !== undefined && typeof input[flag] !== 'boolean')
+      out.push({ field: flag, message: 'must be true or false' });
   }
   checkRates(input['rates'], out);
 
@@ -103,7 +120,8 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
   const outlineRaw = readRing(input['outline'], 'outline', out);
   const obstaclesRaw = input['obstacles'] ?? [];
   const obstacles: (Point[] | null)[] = [];
-  if (!Array.isArray(obstaclesRaw)) out.push({ field: 'obstacles', message: 'must be a list of polygons' });
+  if (!Array.isArray(obstaclesRaw))
+    out.push({ field: 'obstacles', message: 'must be a list of polygons' });
   else obstaclesRaw.forEach((o, k) => obstacles.push(readRing(o, `obstacles[${k}]`, out)));
   const zones = readZones(input['zones'], out);
   const patternRings = checkPattern(input['pattern'], out);
@@ -118,7 +136,10 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
   for (const [field, n] of counted) {
     total += n;
     if (total > LIMITS.maxVertices) {
-      out.push({ field, message: `the floor has more than ${LIMITS.maxVertices} vertices in all (outline, obstacles, zones)` });
+      out.push({
+        field,
+        message: `the floor has more than ${LIMITS.maxVertices} vertices in all (outline, obstacles, zones)`,
+      });
       return out; // Too big to check further within a live edit's budget.
     }
   }
@@ -128,7 +149,10 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
   if (outline) {
     const areaM2 = Math.abs(signedArea(outline)) / 1e6;
     if (areaM2 > LIMITS.maxAreaM2 * (1 + 1e-9)) {
-      out.push({ field: 'outline', message: `floor area ${Math.round(areaM2)} m² is over the ${LIMITS.maxAreaM2} m² limit` });
+      out.push({
+        field: 'outline',
+        message: `floor area ${Math.round(areaM2)} m² is over the ${LIMITS.maxAreaM2} m² limit`,
+      });
     }
   }
   const goodObstacles: { ring: Point[]; k: number }[] = [];
@@ -139,7 +163,11 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
     if (outline) {
       const outside = ringOutside(ring, outline);
       if (outside) {
-        out.push({ field: `obstacles[${k}]`, message: 'lies (partly) outside the outline', point: outside });
+        out.push({
+          field: `obstacles[${k}]`,
+          message: 'lies (partly) outside the outline',
+          point: outside,
+        });
         return;
       }
     }
@@ -173,7 +201,8 @@ function ringOutside(ring: Point[], outline: Point[]): Point | null {
 }
 
 function onRing(p: Point, ring: Point[], tol: number): boolean {
-  for (let a = 0; a < ring.length; a++) if (pointSegmentDistance(p, ring[a], ring[(a + 1) % ring.length]) <= tol) return true;
+  for (let a = 0; a < ring.length; a++)
+    if (pointSegmentDistance(p, ring[a], ring[(a + 1) % ring.length]) <= tol) return true;
   return false;
 }
 
@@ -217,10 +246,17 @@ function checkObstacleOverlaps(list: { ring: Point[]; k: number }[], out: Takeof
       const A = list[a].ring;
       const B = list[b].ring;
       const cross = findRingTouch(A, B, 0, true);
-      const inside = cross ?? (pointInRing(interiorPoint(B), A) ? interiorPoint(B) : null) ?? (pointInRing(interiorPoint(A), B) ? interiorPoint(A) : null);
+      const inside =
+        cross ??
+        (pointInRing(interiorPoint(B), A) ? interiorPoint(B) : null) ??
+        (pointInRing(interiorPoint(A), B) ? interiorPoint(A) : null);
       if (inside) {
         const [k1, k2] = [list[a].k, list[b].k].sort((u, v) => u - v);
-        out.push({ field: `obstacles[${k2}]`, message: `overlaps obstacles[${k1}]`, point: inside });
+        out.push({
+          field: `obstacles[${k2}]`,
+          message: `overlaps obstacles[${k1}]`,
+          point: inside,
+        });
       }
     }
   }
@@ -235,18 +271,27 @@ function checkDoorways(v: unknown, outline: Point[], out: TakeoffProblem[]): voi
   const tol = LIMITS.onEdgeTolMm;
   v.forEach((d, k) => {
     const field = `doorways[${k}]`;
-    if (!isObj(d)) return void out.push({ field, message: 'must be { from: [x, y], to: [x, y], ramp? }' });
+    if (!isObj(d))
+      return void out.push({ field, message: 'must be { from: [x, y], to: [x, y], ramp? }' });
     const pts = [d['from'], d['to']];
     for (const [n, p] of pts.entries()) {
       if (!Array.isArray(p) || p.length !== 2 || !isNum(p[0]) || !isNum(p[1])) {
-        return void out.push({ field: `${field}.${n === 0 ? 'from' : 'to'}`, message: 'must be a point [x, y]' });
+        return void out.push({
+          field: `${field}.${n === 0 ? 'from' : 'to'}`,
+          message: 'must be a point [x, y]',
+        });
       }
     }
-    if (d['ramp'] !== undefined && typeof d['ramp'] !== 'boolean') out.push({ field: `${field}.ramp`, message: 'must be true or false' });
+    if (d['ramp'] !== undefined && typeof d['ramp'] !== 'boolean')
+      out.push({ field: `${field}.ramp`, message: 'must be true or false' });
     const from = d['from'] as Point;
     const to = d['to'] as Point;
     if (Math.hypot(to[0] - from[0], to[1] - from[1]) <= tol) {
-      return void out.push({ field, message: 'has no width (from and to are the same point)', point: from });
+      return void out.push({
+        field,
+        message: 'has no width (from and to are the same point)',
+        point: from,
+      });
     }
     for (let a = 0; a < outline.length; a++) {
       const p = outline[a];
@@ -254,7 +299,11 @@ function checkDoorways(v: unknown, outline: Point[], out: TakeoffProblem[]): voi
       if (pointSegmentDistance(from, p, q) <= tol && pointSegmentDistance(to, p, q) <= tol) return;
     }
     const off = onRing(from, outline, tol) ? to : from;
-    out.push({ field, message: 'is not on an edge of the outline (from and to must lie on the same wall)', point: off });
+    out.push({
+      field,
+      message: 'is not on an edge of the outline (from and to must lie on the same wall)',
+      point: off,
+    });
   });
 }
 
@@ -271,18 +320,29 @@ function readZones(v: unknown, out: TakeoffProblem[]): NamedRing[] {
     return rings;
   }
   const adhesive = v['adhesive'] ?? [];
-  if (!Array.isArray(adhesive)) out.push({ field: 'zones.adhesive', message: 'must be a list of polygons' });
-  else adhesive.forEach((z, k) => rings.push({ field: `zones.adhesive[${k}]`, ring: readRing(z, `zones.adhesive[${k}]`, out) }));
+  if (!Array.isArray(adhesive))
+    out.push({ field: 'zones.adhesive', message: 'must be a list of polygons' });
+  else
+    adhesive.forEach((z, k) =>
+      rings.push({ field: `zones.adhesive[${k}]`, ring: readRing(z, `zones.adhesive[${k}]`, out) }),
+    );
   const lev = v['levelling'] ?? [];
-  if (!Array.isArray(lev)) out.push({ field: 'zones.levelling', message: 'must be a list of { polygon, depthMm }' });
+  if (!Array.isArray(lev))
+    out.push({ field: 'zones.levelling', message: 'must be a list of { polygon, depthMm }' });
   else {
     lev.forEach((z, k) => {
       const field = `zones.levelling[${k}]`;
       if (!isObj(z)) return void out.push({ field, message: 'must be { polygon, depthMm }' });
       if (!isNum(z['depthMm']) || z['depthMm'] <= 0 || z['depthMm'] > LIMITS.maxLevellingDepthMm) {
-        out.push({ field: `${field}.depthMm`, message: `must be more than 0 and at most ${LIMITS.maxLevellingDepthMm} mm` });
+        out.push({
+          field: `${field}.depthMm`,
+          message: `must be more than 0 and at most ${LIMITS.maxLevellingDepthMm} mm`,
+        });
       }
-      rings.push({ field: `${field}.polygon`, ring: readRing(z['polygon'], `${field}.polygon`, out) });
+      rings.push({
+        field: `${field}.polygon`,
+        ring: readRing(z['polygon'], `${field}.polygon`, out),
+      });
     });
   }
   return rings;
@@ -293,12 +353,13 @@ function checkPattern(v: unknown, out: TakeoffProblem[]): NamedRing[] {
   if (v === undefined) return rings;
   const field = 'pattern';
   const str = (x: unknown) => typeof x === 'string' && x.length > 0;
-  if (!isObj(v)) return out.push({ field, message: 'must be an object with a kind' }), rings;
+  if (!isObj(v)) return (out.push({ field, message: 'must be an object with a kind' }), rings);
   const kind = v['kind'];
   const colours = v['colours'];
   switch (kind) {
     case 'single':
-      if (v['colour'] !== undefined && !str(v['colour'])) out.push({ field: 'pattern.colour', message: 'must be a colour name' });
+      if (v['colour'] !== undefined && !str(v['colour']))
+        out.push({ field: 'pattern.colour', message: 'must be a colour name' });
       break;
     case 'chequer':
       if (!Array.isArray(colours) || colours.length !== 2 || !colours.every(str)) {
@@ -309,22 +370,40 @@ function checkPattern(v: unknown, out: TakeoffProblem[]): NamedRing[] {
       if (!Array.isArray(colours) || colours.length < 1 || !colours.every(str)) {
         out.push({ field: 'pattern.colours', message: 'must be a list of colour names' });
       }
-      if (v['widthTiles'] !== undefined && !(Number.isInteger(v['widthTiles']) && (v['widthTiles'] as number) >= 1)) {
-        out.push({ field: 'pattern.widthTiles', message: 'must be a whole number of tiles, at least 1' });
+      if (
+        v['widthTiles'] !== undefined &&
+        !(Number.isInteger(v['widthTiles']) && (v['widthTiles'] as number) >= 1)
+      ) {
+        out.push({
+          field: 'pattern.widthTiles',
+          message: 'must be a whole number of tiles, at least 1',
+        });
       }
-      if (v['direction'] !== undefined && v['direction'] !== 'rows' && v['direction'] !== 'columns') {
+      if (
+        v['direction'] !== undefined &&
+        v['direction'] !== 'rows' &&
+        v['direction'] !== 'columns'
+      ) {
         out.push({ field: 'pattern.direction', message: "must be 'rows' or 'columns'" });
       }
       break;
     case 'border':
-      if (!(Number.isInteger(v['rows']) && (v['rows'] as number) >= 1 && (v['rows'] as number) <= 100)) {
-        out.push({ field: 'pattern.rows', message: 'must be a whole number of rows from 1 to 100' });
+      if (
+        !(Number.isInteger(v['rows']) && (v['rows'] as number) >= 1 && (v['rows'] as number) <= 100)
+      ) {
+        out.push({
+          field: 'pattern.rows',
+          message: 'must be a whole number of rows from 1 to 100',
+        });
       }
-      if (!str(v['borderColour'])) out.push({ field: 'pattern.borderColour', message: 'must be a colour name' });
-      if (!str(v['fieldColour'])) out.push({ field: 'pattern.fieldColour', message: 'must be a colour name' });
+      if (!str(v['borderColour']))
+        out.push({ field: 'pattern.borderColour', message: 'must be a colour name' });
+      if (!str(v['fieldColour']))
+        out.push({ field: 'pattern.fieldColour', message: 'must be a colour name' });
       break;
     case 'bays': {
-      if (!str(v['baseColour'])) out.push({ field: 'pattern.baseColour', message: 'must be a colour name' });
+      if (!str(v['baseColour']))
+        out.push({ field: 'pattern.baseColour', message: 'must be a colour name' });
       const bays = v['bays'];
       if (!Array.isArray(bays)) {
         out.push({ field: 'pattern.bays', message: 'must be a list of { polygon, colour }' });
@@ -339,7 +418,10 @@ function checkPattern(v: unknown, out: TakeoffProblem[]): NamedRing[] {
       break;
     }
     default:
-      out.push({ field: 'pattern.kind', message: "must be 'single', 'chequer', 'stripes', 'border' or 'bays'" });
+      out.push({
+        field: 'pattern.kind',
+        message: "must be 'single', 'chequer', 'stripes', 'border' or 'bays'",
+      });
   }
   return rings;
 }
@@ -352,16 +434,31 @@ function checkRates(v: unknown, out: TakeoffProblem[]): void {
     if (!(key in DEFAULT_RATES)) out.push({ field, message: 'is not a known rate' });
     else if (value === undefined) continue;
     else if (key === 'anchoring') {
-      if (value !== 'tape' && value !== 'mastic') out.push({ field, message: "must be 'tape' or 'mastic'" });
-    } else if (!isNum(value) || value < 0) out.push({ field, message: 'must be a number, zero or more' });
+      if (value !== 'tape' && value !== 'mastic')
+        out.push({ field, message: "must be 'tape' or 'mastic'" });
+    } else if (!isNum(value) || value < 0)
+      out.push({ field, message: 'must be a number, zero or more' });
     else if (['packSize', 'crewSize'].includes(key) && !(Number.isInteger(value) && value >= 1)) {
       out.push({ field, message: 'must be a whole number, at least 1' });
     } else if (
-      ['adhesiveKitKg', 'primerPackL', 'fillerBagKg', 'tapeRollMm', 'masticCartridgeMm', 'skirtingStockMm', 'rampStockMm', 'hoursPerDay', 'layM2PerHourPerFitter', 'adhesiveLayM2PerHourPerFitter', 'adhesivePotLifeMin', 'skirtingMPerHour', 'productionBatchM2'].includes(key) &&
+      [
+        'adhesiveKitKg',
+        'primerPackL',
+        'fillerBagKg',
+        'tapeRollMm',
+        'masticCartridgeMm',
+        'skirtingStockMm',
+        'rampStockMm',
+        'hoursPerDay',
+        'layM2PerHourPerFitter',
+        'adhesiveLayM2PerHourPerFitter',
+        'adhesivePotLifeMin',
+        'skirtingMPerHour',
+        'productionBatchM2',
+      ].includes(key) &&
       value <= 0
     ) {
       out.push({ field, message: 'must be more than zero' });
     }
   }
 }
-

@@ -151,7 +151,14 @@ function properCrossingY(
 }
 
 /** Receives one trapezoid: left edge from xLa (at ya) to xLb (at yb), right edge likewise. */
-export type TrapezoidSink = (ya: number, yb: number, xLa: number, xLb: number, xRa: number, xRb: number) => void;
+export type TrapezoidSink = (
+  ya: number,
+  yb: number,
+  xLa: number,
+  xLb: number,
+  xRa: number,
+  xRb: number,
+) => void;
 
 /** Whether a point with these winding numbers per class is in the region. */
 export type InsideRule = (wind: Int32Array) => boolean;

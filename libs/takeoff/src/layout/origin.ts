@@ -11,7 +11,8 @@
  * 'centre'. Candidates: per axis, the offsets that keep the straight walls' cuts widest
  * (solved exactly by bisection on the circle of offsets modulo the pitch), combined; then a
  * compass search around the best; small floors also get a coarse scan for angled walls. The
- * number of scorings is budgeted by floor size (about 60 for a 40,000-tile hall).
+ * number of scorings is budgeted by floor size (about 60 for a 40,000-tile hall, at
+ * least 12 for the largest floors).
  * Rotating the grid by 90° is not searched: a square grid turned 90° about its origin is the
  * same grid, so it cannot change any count.
  */
@@ -86,24 +87,36 @@ export interface AutoResult {
 }
 
 /** Searches grid offsets, starting from (and never worse than) `start`. */
-export function autoOrigin(es: EdgeSet, rings: Point[][], p: number, start: { x: number; y: number }): AutoResult {
+export function autoOrigin(
+  es: EdgeSet,
+  rings: Point[][],
+  p: number,
+  start: { x: number; y: number },
+): AutoResult {
   // Budget of exact scorings, by floor size: a scoring costs about one pass over the cells.
   let area = 0;
   for (let k = 0; k < rings.length; k++) area += (k === 0 ? 1 : -1) * Math.abs(ringArea(rings[k]));
   const cells = Math.max(1, area / (p * p));
-  const budget = Math.max(40, Math.min(600, Math.floor(2.5e6 / cells)));
+  const budget = Math.max(12, Math.min(600, Math.floor(2.5e6 / cells)));
 
   const search = new Search(es, p, start, budget);
   // 1. Per axis, the offsets that keep every straight wall's cut as wide as possible.
   const cx = [start.x, ...axisOptima(rings, p, 0)];
   const cy = [start.y, ...axisOptima(rings, p, 1)];
-  for (const x of cx) for (const y of cy) search.try(x, y);
+  // Most promising combinations first (index 1 on each axis is the all-walls optimum).
+  const combos: [number, number][] = [];
+  for (let i = 0; i < cx.length; i++) for (let j = 0; j < cy.length; j++) combos.push([i, j]);
+  const rank = ([i, j]: [number, number]) =>
+    Math.max(i === 0 ? 1.5 : i, j === 0 ? 1.5 : j) * 10 + i + j;
+  combos.sort((u, v) => rank(u) - rank(v));
+  for (const [i, j] of combos) search.try(cx[i], cy[j]);
   // 2. Pattern search around the best so far.
   search.refine(p / 8);
   // 3. Small floors: a coarse scan too (angled walls), refined again.
   if (search.left() > 80) {
     const k = Math.min(8, Math.floor(Math.sqrt(search.left() / 3)));
-    for (let a = 0; a < k; a++) for (let b = 0; b < k; b++) search.try(((a + 0.5) / k) * p, ((b + 0.5) / k) * p);
+    for (let a = 0; a < k; a++)
+      for (let b = 0; b < k; b++) search.try(((a + 0.5) / k) * p, ((b + 0.5) / k) * p);
     search.refine(p / (2 * k));
   }
   return { x: search.bx, y: search.by, score: search.best, evaluated: search.evaluated };
@@ -155,7 +168,11 @@ class Search {
   refine(step: number): void {
     while (step >= 0.25 && this.left() > 0) {
       const { bx, by } = this;
-      const moved = this.try(bx + step, by) || this.try(bx - step, by) || this.try(bx, by + step) || this.try(bx, by - step);
+      const moved =
+        this.try(bx + step, by) ||
+        this.try(bx - step, by) ||
+        this.try(bx, by + step) ||
+        this.try(bx, by - step);
       if (!moved) step /= 2;
     }
   }
@@ -163,7 +180,8 @@ class Search {
 
 function ringArea(r: Point[]): number {
   let s = 0;
-  for (let i = 0, j = r.length - 1; i < r.length; j = i++) s += (r[j][0] - r[i][0]) * (r[j][1] + r[i][1]);
+  for (let i = 0, j = r.length - 1; i < r.length; j = i++)
+    s += (r[j][0] - r[i][0]) * (r[j][1] + r[i][1]);
   return s / 2;
 }
 
@@ -189,7 +207,11 @@ function axisOptima(rings: Point[][], p: number, axis: 0 | 1): number[] {
       // Left normal (−dy, dx) points into a CCW outline and out of a CCW obstacle.
       const normal = axis === 0 ? -(b[1] - a[1]) : b[0] - a[0];
       const rising = k === 0 ? normal > 0 : normal < 0;
-      all.push({ pos: axis === 0 ? (a[0] + b[0]) / 2 : (a[1] + b[1]) / 2, rising, len: Math.abs(along) });
+      all.push({
+        pos: axis === 0 ? (a[0] + b[0]) / 2 : (a[1] + b[1]) / 2,
+        rising,
+        len: Math.abs(along),
+      });
     }
   });
   const out: number[] = [];
@@ -210,7 +232,11 @@ function axisOptima(rings: Point[][], p: number, axis: 0 | 1): number[] {
 }
 
 /** Free arcs [start, end) of [0, p) where every wall's cut is at least t. */
-function freeArcs(walls: { pos: number; rising: boolean }[], p: number, t: number): [number, number][] {
+function freeArcs(
+  walls: { pos: number; rising: boolean }[],
+  p: number,
+  t: number,
+): [number, number][] {
   const banned: [number, number][] = [];
   const ban = (from: number, len: number) => {
     const s = mod(from, p);

@@ -28,7 +28,12 @@ export function makeColourer(
   const none = () => undefined;
   switch (pat.kind) {
     case 'single':
-      return { colours: [pat.colour ?? DEFAULT_COLOUR], beginRow: none, colourAt: () => 0, uniform: true };
+      return {
+        colours: [pat.colour ?? DEFAULT_COLOUR],
+        beginRow: none,
+        colourAt: () => 0,
+        uniform: true,
+      };
     case 'chequer':
       return {
         colours: [pat.colours[0], pat.colours[1]],
@@ -43,12 +48,20 @@ export function makeColourer(
       return {
         colours: [...pat.colours],
         beginRow: none,
-        colourAt: (i, j) => (((Math.floor((byRows ? j : i) / w) % n) + n) % n),
+        colourAt: (i, j) => ((Math.floor((byRows ? j : i) / w) % n) + n) % n,
         uniform: n === 1,
       };
     }
     case 'border':
-      return borderColourer(pat.rows * p, pat.borderColour, pat.fieldColour, ox, oy, p, regionOutline);
+      return borderColourer(
+        pat.rows * p,
+        pat.borderColour,
+        pat.fieldColour,
+        ox,
+        oy,
+        p,
+        regionOutline,
+      );
     case 'bays': {
       const bays = pat.bays.map((b) => rotatePoints(b.polygon, -grid.angleDeg));
       const colours = [pat.baseColour, ...pat.bays.map((b) => b.colour)];
@@ -62,7 +75,8 @@ export function makeColourer(
         },
         colourAt(i) {
           const xc = ox + (i + 0.5) * p;
-          for (let b = rowIntervals.length - 1; b >= 0; b--) if (inIntervals(rowIntervals[b], xc)) return b + 1;
+          for (let b = rowIntervals.length - 1; b >= 0; b--)
+            if (inIntervals(rowIntervals[b], xc)) return b + 1;
           return 0;
         },
       };
@@ -129,7 +143,8 @@ function borderColourer(
     colourAt(i) {
       const xc = ox + (i + 0.5) * p;
       // Strictly within the band: a centre exactly N pitches from the wall is field.
-      for (let k = 0; k + 1 < intervals.length; k += 2) if (xc > intervals[k] && xc < intervals[k + 1]) return 1;
+      for (let k = 0; k + 1 < intervals.length; k += 2)
+        if (xc > intervals[k] && xc < intervals[k + 1]) return 1;
       return 0;
     },
   };

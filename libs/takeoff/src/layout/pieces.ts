@@ -39,7 +39,13 @@ function find(parent: Int32Array, i: number): number {
   return i;
 }
 
-export function analyseCell(all: Slice[], c0: number, r0: number, p: number, geometry: boolean): CellAnalysis {
+export function analyseCell(
+  all: Slice[],
+  c0: number,
+  r0: number,
+  p: number,
+  geometry: boolean,
+): CellAnalysis {
   const slices: Slice[] = [];
   for (const s of all) if (s.area >= DUST_MM2) slices.push(s);
   slices.sort((a, b) => a.ys - b.ys || a.left[0] - b.left[0]);
@@ -130,7 +136,12 @@ function straightKind(box: number[], c0: number, r0: number, p: number): CutKind
  * (left side up, right side down); where a piece forks, a new ring starts, so a forked
  * piece is drawn as adjoining rings.
  */
-function buildRings(slices: Slice[], upCount: Int32Array, downCount: Int32Array, upOf: Int32Array): number[][] {
+function buildRings(
+  slices: Slice[],
+  upCount: Int32Array,
+  downCount: Int32Array,
+  upOf: Int32Array,
+): number[][] {
   const n = slices.length;
   const used = new Uint8Array(n);
   const rings: number[][] = [];
@@ -157,7 +168,8 @@ function buildRings(slices: Slice[], upCount: Int32Array, downCount: Int32Array,
 function appendChain(into: number[], pts: number[]): void {
   for (let q = 0; q < pts.length; q += 2) {
     const n = into.length;
-    if (n >= 2 && Math.abs(into[n - 2] - pts[q]) < EPS && Math.abs(into[n - 1] - pts[q + 1]) < EPS) continue;
+    if (n >= 2 && Math.abs(into[n - 2] - pts[q]) < EPS && Math.abs(into[n - 1] - pts[q + 1]) < EPS)
+      continue;
     into.push(pts[q], pts[q + 1]);
   }
 }
@@ -166,10 +178,15 @@ function dedupeRing(ring: number[]): number[] {
   const out: number[] = [];
   for (let q = 0; q < ring.length; q += 2) {
     const n = out.length;
-    if (n >= 2 && Math.abs(out[n - 2] - ring[q]) < EPS && Math.abs(out[n - 1] - ring[q + 1]) < EPS) continue;
+    if (n >= 2 && Math.abs(out[n - 2] - ring[q]) < EPS && Math.abs(out[n - 1] - ring[q + 1]) < EPS)
+      continue;
     out.push(ring[q], ring[q + 1]);
   }
-  if (out.length >= 4 && Math.abs(out[0] - out[out.length - 2]) < EPS && Math.abs(out[1] - out[out.length - 1]) < EPS) {
+  if (
+    out.length >= 4 &&
+    Math.abs(out[0] - out[out.length - 2]) < EPS &&
+    Math.abs(out[1] - out[out.length - 1]) < EPS
+  ) {
     out.length -= 2;
   }
   return out;

@@ -42,7 +42,14 @@ const SLICE_STRIDE = 18;
 /** Lays the grid over the region selected by {@link floorRule} and classifies every cell. */
 export function rasterize(es: EdgeSet, opt: RasterOptions): RasterResult {
   const { ox, oy, pitch: p, geometry } = opt;
-  const res: RasterResult = { full: 0, cut: 0, area: 0, smallest: Infinity, fullRuns: [], cutCells: [] };
+  const res: RasterResult = {
+    full: 0,
+    cut: 0,
+    area: 0,
+    smallest: Infinity,
+    fullRuns: [],
+    cutCells: [],
+  };
   if (es.n === 0) return res;
   const sweeper = new Sweeper(es, floorRule);
   const ev = es.events;
@@ -156,7 +163,16 @@ export function rasterize(es: EdgeSet, opt: RasterOptions): RasterResult {
         runStart = -1;
         if (a > AREA_TOL_MM2) {
           const k = t + cMin;
-          const cell = collectCell(k, ox + k * p, p, slices, bucketIdx, bucketStart[t], bucketStart[t + 1], ranges);
+          const cell = collectCell(
+            k,
+            ox + k * p,
+            p,
+            slices,
+            bucketIdx,
+            bucketStart[t],
+            bucketStart[t + 1],
+            ranges,
+          );
           const info = analyseCell(cell, ox + k * p, Y0, p, geometry);
           res.cut++;
           if (info.size < res.smallest) res.smallest = info.size;
@@ -196,7 +212,13 @@ function collectCell(
     if (k < ranges[r] || k > ranges[r + 1]) continue;
     const ya = ranges[r + 2];
     const yb = ranges[r + 3];
-    out.push({ ys: ya, ye: yb, area: (yb - ya) * p, left: [c0, ya, c0, yb], right: [c0 + p, ya, c0 + p, yb] });
+    out.push({
+      ys: ya,
+      ye: yb,
+      area: (yb - ya) * p,
+      left: [c0, ya, c0, yb],
+      right: [c0 + p, ya, c0 + p, yb],
+    });
   }
   return out;
 }

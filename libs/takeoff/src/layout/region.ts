@@ -20,9 +20,16 @@ export interface TiledRegion {
   angleDeg: number;
 }
 
-export function buildRegion(outline: Point[], obstacles: Point[][], gapMm: number, angleDeg: number): TiledRegion {
+export function buildRegion(
+  outline: Point[],
+  obstacles: Point[][],
+  gapMm: number,
+  angleDeg: number,
+): TiledRegion {
   const o = offsetRingMitre(toCcw(rotatePoints(cleanRing(outline), -angleDeg)), -gapMm);
-  const holes = obstacles.map((ob) => offsetRingMitre(toCcw(rotatePoints(cleanRing(ob), -angleDeg)), gapMm));
+  const holes = obstacles.map((ob) =>
+    offsetRingMitre(toCcw(rotatePoints(cleanRing(ob), -angleDeg)), gapMm),
+  );
   const edges = buildEdgeSet([{ ring: o, cls: 0 }, ...holes.map((ring) => ({ ring, cls: 1 }))], 2);
   return { outline: o, holes, edges, angleDeg };
 }

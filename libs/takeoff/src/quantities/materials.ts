@@ -44,7 +44,11 @@ export function materials(q: MaterialInputs, r: TakeoffRates): Materials {
     },
     primer: { areaM2: levArea, litres: primerL, packs: ceilUnits(primerL / r.primerPackL) },
     filler: { areaM2: levArea, kg: fillerKg, bags: ceilUnits(fillerKg / r.fillerBagKg) },
-    anchoring: { method: r.anchoring, lengthMm: q.anchorLengthMm, units: ceilUnits(q.anchorLengthMm / unitMm) },
+    anchoring: {
+      method: r.anchoring,
+      lengthMm: q.anchorLengthMm,
+      units: ceilUnits(q.anchorLengthMm / unitMm),
+    },
   };
 }
 
@@ -64,7 +68,11 @@ export function labour(q: LabourInputs, r: TakeoffRates): Labour {
   // Laying into adhesive is slower: the extra over open-area laying, plus spreading it.
   const slowerLay =
     r.adhesiveLayM2PerHourPerFitter > 0 && r.layM2PerHourPerFitter > 0
-      ? Math.max(0, q.adhesiveAreaM2 / r.adhesiveLayM2PerHourPerFitter - q.adhesiveAreaM2 / r.layM2PerHourPerFitter)
+      ? Math.max(
+          0,
+          q.adhesiveAreaM2 / r.adhesiveLayM2PerHourPerFitter -
+            q.adhesiveAreaM2 / r.layM2PerHourPerFitter,
+        )
       : 0;
   const adhesive = slowerLay + q.adhesiveAreaM2 * r.adhesiveHoursPerM2;
   const levelling = q.levellingAreaM2 * r.levellingHoursPerM2;

@@ -4,7 +4,11 @@ import type { TakeoffRates } from '../rates';
 import type { ColourCount, Point, TakeoffWarning } from '../types';
 
 /** Obstacles with a strip narrower than one tile between them and a wall. */
-export function obstacleNearWallWarnings(outline: Point[], obstacles: Point[][], pitch: number): TakeoffWarning[] {
+export function obstacleNearWallWarnings(
+  outline: Point[],
+  obstacles: Point[][],
+  pitch: number,
+): TakeoffWarning[] {
   const out: TakeoffWarning[] = [];
   obstacles.forEach((ob, k) => {
     let best = Infinity;
@@ -44,7 +48,11 @@ export function obstacleNearWallWarnings(outline: Point[], obstacles: Point[][],
   return out;
 }
 
-export function batchWarnings(byColour: ColourCount[], pitch: number, r: TakeoffRates): TakeoffWarning[] {
+export function batchWarnings(
+  byColour: ColourCount[],
+  pitch: number,
+  r: TakeoffRates,
+): TakeoffWarning[] {
   const big = byColour.filter((c) => (c.toOrder * pitch * pitch) / 1e6 > r.productionBatchM2);
   if (big.length === 0) return [];
   return [

@@ -20,12 +20,21 @@ export function zonesInFloorMm2(zones: Point[][], outline: Point[], obstacles: P
 }
 
 /** A warning per zone with part of it outside the outline (beyond a 100 mm² / 0.1 % slack). */
-export function zonesOutsideWarnings(zones: { field: string; ring: Point[] }[], outline: Point[]): TakeoffWarning[] {
+export function zonesOutsideWarnings(
+  zones: { field: string; ring: Point[] }[],
+  outline: Point[],
+): TakeoffWarning[] {
   const out: TakeoffWarning[] = [];
   const o = ccw(outline);
   for (const { field, ring } of zones) {
     const z = ccw(ring);
-    const es = buildEdgeSet([{ ring: z, cls: 0 }, { ring: o, cls: 1 }], 2);
+    const es = buildEdgeSet(
+      [
+        { ring: z, cls: 0 },
+        { ring: o, cls: 1 },
+      ],
+      2,
+    );
     const outside = regionArea(es, (w) => w[0] > 0 && w[1] <= 0);
     const total = Math.abs(signedArea(z));
     if (outside > Math.max(100, total * 1e-3)) {
