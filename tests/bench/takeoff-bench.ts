@@ -179,7 +179,7 @@ for (const area of [100, 1_000, 10_000, 50_000, 100_000]) {
   const r = computeTakeoff(inp);
   const tiles = r.tiles.full + r.tiles.cut;
   const runs = area >= 50_000 ? 7 : 21;
-  const ms = median(() => computeTakeoff(inp), runs);
+  const ms = median(() => computeTakeoff(inp), runs, area >= 50_000 ? 3 : 15);
   const am = median(() => optimiseOrigin(inp), area >= 50_000 ? 3 : 5, 1);
   console.log(
     `${String(area).padStart(10)} ${String(inp.obstacles?.length).padStart(9)} ${String(tiles).padStart(10)} ${fmt(ms).padStart(12)} ${fmt((ms * 1e6) / tiles, 0).padStart(13)} ${fmt(am, 1).padStart(9)}`,

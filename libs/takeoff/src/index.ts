@@ -3,7 +3,7 @@
  * runs in Node and in the browser. Lengths in millimetres.
  */
 export { computeTakeoff } from './compute';
-export { optimiseOrigin, layoutStats } from './optimise';
+export { optimiseOrigin, layoutStats, type LayoutScore, type OptimiseResult } from './optimise';
 export { validateTakeoffInput, TakeoffInputError, LIMITS } from './validate';
 export { DEFAULT_RATES, resolveRates, type TakeoffRates } from './rates';
 export { cellCorners, forEachFullTile, ringPath } from './plan';
