@@ -201,6 +201,24 @@ function check(input: TakeoffInput & { origin: { x: number; y: number } }): void
     for (let i = runs[r]; i < runs[r + 1]; i++) mine.set(`${i},${runs[r + 2]}`, 'full');
   for (const c of got.plan.cutTiles) mine.set(`${c.i},${c.j}`, 'cut');
   expect(mine).toEqual(ref.cells);
+  // The plan's piece outlines: inside their cell, and their areas add up to the overlap.
+  for (const c of got.plan.cutTiles) {
+    const x0 = input.origin.x + c.i * p;
+    const y0 = input.origin.y + c.j * p;
+    let ringsArea = 0;
+    for (const ring of c.rings) {
+      const pts: Point[] = [];
+      for (let q = 0; q < ring.length; q += 2) {
+        expect(ring[q]).toBeGreaterThanOrEqual(x0 - 1e-6);
+        expect(ring[q]).toBeLessThanOrEqual(x0 + p + 1e-6);
+        expect(ring[q + 1]).toBeGreaterThanOrEqual(y0 - 1e-6);
+        expect(ring[q + 1]).toBeLessThanOrEqual(y0 + p + 1e-6);
+        pts.push([ring[q], ring[q + 1]]);
+      }
+      ringsArea += Math.abs(area(pts));
+    }
+    expect(ringsArea).toBeCloseTo(c.areaMm2, 3);
+  }
 }
 
 // ---- random floors ---------------------------------------------------------------------

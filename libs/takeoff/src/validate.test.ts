@@ -308,8 +308,15 @@ describe('never a crash', () => {
           fc.record({ x: fc.integer(), y: fc.integer() }),
         ),
         fc.integer({ min: -90, max: 90 }),
-        (outline, obstacles, gapMm, pitchMm, origin, layoutAngleDeg) => {
+        fc.constantFrom<TakeoffInput['pattern']>(
+          undefined,
+          { kind: 'chequer', colours: ['a', 'b'] },
+          { kind: 'border', rows: 2, borderColour: 'a', fieldColour: 'b' },
+          { kind: 'stripes', colours: ['a', 'b', 'c'], direction: 'columns' },
+        ),
+        (outline, obstacles, gapMm, pitchMm, origin, layoutAngleDeg, pattern) => {
           const input = {
+            pattern,
             outline: outline as Point[],
             obstacles: obstacles as Point[][],
             gapMm,
@@ -338,6 +345,14 @@ describe('never a crash', () => {
               Number.isInteger(r.tiles.cut),
           ).toBe(true);
           expect(r.tiledAreaM2).toBeLessThanOrEqual(r.netAreaM2 + 1e-9);
+          const sum = (f: (c: (typeof r.tiles.byColour)[number]) => number) =>
+            r.tiles.byColour.reduce((t, c) => t + f(c), 0);
+          expect([sum((c) => c.full), sum((c) => c.cut), sum((c) => c.toOrder)]).toEqual([
+            r.tiles.full,
+            r.tiles.cut,
+            r.tiles.toOrder,
+          ]);
+          expect(r.plan.cutTiles).toHaveLength(r.tiles.cut);
           // The tiles cover exactly the tiled region.
           const covered =
             r.tiles.full * pitchMm * pitchMm + r.plan.cutTiles.reduce((s, c) => s + c.areaMm2, 0);
