@@ -20,14 +20,14 @@ export const logDir = (cfg) => path.join(cfg.dataDir, 'logs');
 export function startProcess(cfg, name, command, args, extraEnv = {}) {
   mkdirSync(runDir(cfg), { recursive: true });
   mkdirSync(logDir(cfg), { recursive: true });
-  const log = createWriteStream(path.join(logDir(cfg), `${name}.log`), { flags: 'a' });
+  // The child writes to the log file itself, so it lives on if this process ends first.
+  const log = openSync(path.join(logDir(cfg), `${name}.log`), 'a');
   const child = spawn(command, args, {
     cwd: ROOT,
     env: { ...process.env, ...cfg.env, ...extraEnv, NX_DAEMON: 'false', NX_NO_CLOUD: 'true' },
-    stdio: ['ignore', 'pipe', 'pipe'],
+    stdio: ['ignore', log, log],
   });
-  child.stdout.pipe(log);
-  child.stderr.pipe(log);
+  closeSync(log);
   writeFileSync(path.join(runDir(cfg), `${name}.pid`), String(child.pid));
   child.on('exit', () => rmSync(path.join(runDir(cfg), `${name}.pid`), { force: true }));
   return child;

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { withTenant } from '@latchwork/shared-db';
 import { isPermission, ROLES, roleHas, type Role } from '@latchwork/identity-domain';
 import { routeAccess } from '../../apps/api/src/app';
+import { signProviderEvent } from '@latchwork/identity-server';
 import { createTestApi } from './api-harness';
 import { demoIds, sessionFor } from './sessions';
 
@@ -119,7 +120,17 @@ async function call(route: Route, as?: { userId: string; tenantId: string }) {
     const session = await sessionFor(deps.db, as.userId, as.tenantId);
     req = req.set('Cookie', session.cookie).set('X-XSRF-TOKEN', session.csrfToken);
   }
-  if (route.method !== 'GET') req = req.send(SAMPLE_BODIES[key]?.() ?? {});
+  if (route.method !== 'GET') {
+    const body = JSON.stringify(SAMPLE_BODIES[key]?.() ?? {});
+    req = req.set('Content-Type', 'application/json');
+    // The identity provider's event stream is public but signed; sign it as the provider would.
+    if (key === 'POST /api/v1/auth/provider-events')
+      req = req.set(
+        'x-idp-signature',
+        signProviderEvent(body, process.env['IDP_EVENT_SECRET'] ?? ''),
+      );
+    req = req.send(body);
+  }
   return req;
 }
 
