@@ -2,13 +2,14 @@
 // folder and leaves a pid file, so `npm run stop` can end exactly what was started.
 import { spawn, spawnSync } from 'node:child_process';
 import {
-  createWriteStream,
+  closeSync,
+  existsSync,
   mkdirSync,
+  openSync,
   readdirSync,
   readFileSync,
   rmSync,
   writeFileSync,
-  existsSync,
 } from 'node:fs';
 import path from 'node:path';
 import { ROOT } from './config.mjs';
