@@ -1,6 +1,7 @@
 import { Type, reflectComponentType } from '@angular/core';
 import { Route } from '@angular/router';
 import { isObservable, lastValueFrom } from 'rxjs';
+import { isPermission } from '@latchwork/identity-domain';
 import { routes } from './app.routes';
 import { navItemsFrom } from './shell/nav-items';
 
@@ -13,10 +14,22 @@ async function loadComponentOf(route: Route): Promise<unknown> {
 
 describe('app route table', () => {
   it('derives the navigation from the routes that carry nav data, in table order', () => {
-    expect(navItemsFrom(routes)).toEqual([
-      { link: '/', label: 'Home', icon: 'home' },
-      { link: '/status', label: 'System status', icon: 'monitor_heart' },
+    expect(navItemsFrom(routes).map((item) => [item.link, item.label, item.access])).toEqual([
+      ['/', 'Home', 'public'],
+      ['/team', 'Team', 'members:read'],
+      ['/settings', 'Firm settings', 'settings:write'],
+      ['/audit', 'Audit log', 'audit:read'],
+      ['/status', 'System status', 'public'],
     ]);
+  });
+
+  it('names only permissions of the role table, and guards every page that needs one', () => {
+    for (const item of navItemsFrom(routes)) {
+      if (item.access === 'public' || item.access === 'signed-in') continue;
+      expect(isPermission(item.access), item.link).toBe(true);
+      const route = routes.find((r) => `/${r.path}` === item.link);
+      expect(route?.canActivate?.length, `${item.link} has no guard`).toBeGreaterThan(0);
+    }
   });
 
   it('loads every page lazily, never eagerly', () => {

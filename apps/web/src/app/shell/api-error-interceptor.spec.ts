@@ -31,9 +31,15 @@ describe('apiErrorInterceptor', () => {
     backend.verify();
   });
 
-  /** The text of the snackbar on screen, or null when none is shown. */
+  /**
+   * The text of the snackbar on screen, or null when none is shown. The snack bar is loaded on
+   * the first error, so a few turns of the event loop pass before it can appear.
+   */
   async function snackbarText(): Promise<string | null> {
-    TestBed.inject(ApplicationRef).tick();
+    for (let turn = 0; turn < 5; turn++) {
+      await new Promise((resolve) => setTimeout(resolve));
+      TestBed.inject(ApplicationRef).tick();
+    }
     await TestBed.inject(ApplicationRef).whenStable();
     const label = document.querySelector('.mat-mdc-simple-snack-bar .mat-mdc-snack-bar-label');
     return label ? (label.textContent ?? '').trim() : null;

@@ -4,8 +4,7 @@ import {
   HttpInterceptorFn,
   HttpStatusCode,
 } from '@angular/common/http';
-import { inject } from '@angular/core';
-import { MatSnackBar } from '@angular/material/snack-bar';
+import { Injector, inject } from '@angular/core';
 import { catchError, throwError } from 'rxjs';
 
 /**
@@ -31,7 +30,7 @@ interface ApiErrorBody {
  * unchanged so callers can still react. A 401 is left to the sign-in flow, which redirects.
  */
 export const apiErrorInterceptor: HttpInterceptorFn = (req, next) => {
-  const snackBar = inject(MatSnackBar);
+  const injector = inject(Injector);
   return next(req).pipe(
     catchError((err: unknown) => {
       if (
@@ -39,12 +38,21 @@ export const apiErrorInterceptor: HttpInterceptorFn = (req, next) => {
         err.status !== HttpStatusCode.Unauthorized &&
         req.context.get(SHOW_ERROR_SNACKBAR)
       ) {
-        snackBar.open(apiErrorMessage(err), 'Dismiss', { duration: SNACKBAR_MS });
+        void showInSnackBar(injector, apiErrorMessage(err));
       }
       return throwError(() => err);
     }),
   );
 };
+
+/**
+ * The snack bar (with the overlay machinery under it) is loaded on the first error, not with
+ * the app: it is a sizeable part of the initial bundle that most visits never need.
+ */
+async function showInSnackBar(injector: Injector, message: string): Promise<void> {
+  const { MatSnackBar } = await import('@angular/material/snack-bar');
+  injector.get(MatSnackBar).open(message, 'Dismiss', { duration: SNACKBAR_MS });
+}
 
 /** A sentence for a person, from the API's error shape, the HTTP status, or a network failure. */
 export function apiErrorMessage(err: HttpErrorResponse): string {

@@ -1,5 +1,5 @@
 import { Routes } from '@angular/router';
-import { navData, navItemsFrom } from './nav-items';
+import { accessOf, navData, navItemsFrom, visibleNavItems } from './nav-items';
 
 describe('navItemsFrom', () => {
   const page = () => Promise.resolve(class {});
@@ -10,8 +10,8 @@ describe('navItemsFrom', () => {
       { path: '', loadComponent: page, data: navData('Home', 'home') },
     ];
     expect(navItemsFrom(table)).toEqual([
-      { link: '/quotes', label: 'Quotes', icon: 'request_quote' },
-      { link: '/', label: 'Home', icon: 'home' },
+      { link: '/quotes', label: 'Quotes', icon: 'request_quote', access: 'public' },
+      { link: '/', label: 'Home', icon: 'home', access: 'public' },
     ]);
   });
 
@@ -23,5 +23,37 @@ describe('navItemsFrom', () => {
       { path: 'stock', loadComponent: page, data: navData('Stock', 'inventory_2') },
     ];
     expect(navItemsFrom(table).map((item) => item.link)).toEqual(['/stock']);
+  });
+
+  it('carries the permission and the Home hint of a page', () => {
+    const data = navData('Team', 'group', { permission: 'members:read', hint: 'People.' });
+    expect(accessOf(data)).toBe('members:read');
+    expect(navItemsFrom([{ path: 'team', loadComponent: page, data }])).toEqual([
+      { link: '/team', label: 'Team', icon: 'group', access: 'members:read', hint: 'People.' },
+    ]);
+    expect(accessOf(undefined)).toBe('public');
+  });
+
+  it('shows public entries to everyone and the rest only to roles that hold the permission', () => {
+    const items = navItemsFrom([
+      { path: '', loadComponent: page, data: navData('Home', 'home') },
+      {
+        path: 'team',
+        loadComponent: page,
+        data: navData('Team', 'group', { permission: 'members:read' }),
+      },
+      {
+        path: 'mine',
+        loadComponent: page,
+        data: navData('Mine', 'person', { permission: 'signed-in' }),
+      },
+    ]);
+    const links = (signedIn: boolean, granted: string[]) =>
+      visibleNavItems(items, { signedIn, can: (p) => granted.includes(p) }).map((i) => i.link);
+    expect(links(false, [])).toEqual(['/']);
+    // Signed out, even a stale permission shows nothing more.
+    expect(links(false, ['members:read'])).toEqual(['/']);
+    expect(links(true, [])).toEqual(['/', '/mine']);
+    expect(links(true, ['members:read'])).toEqual(['/', '/team', '/mine']);
   });
 });

@@ -1,16 +1,17 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import { MatRipple } from '@angular/material/core';
 import { MatIcon } from '@angular/material/icon';
 import { RouterLink, RouterLinkActive } from '@angular/router';
 import { NavItem } from './nav-items';
 
 /**
  * The main navigation: icon above a short label in the rail, icon beside the label in the
- * drawer. The API reference is a plain link because the API serves it, not the router.
+ * drawer. The API reference is a plain link because the API serves it, not the router. No
+ * ripple: importing it from `@angular/material/core` drags that whole barrel (options,
+ * checkboxes, error states the lazy pages use) into the initial bundle; a hover tint does.
  */
 @Component({
   selector: 'lw-nav-list',
-  imports: [RouterLink, RouterLinkActive, MatIcon, MatRipple],
+  imports: [RouterLink, RouterLinkActive, MatIcon],
   templateUrl: './nav-list.html',
   styleUrl: './nav-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

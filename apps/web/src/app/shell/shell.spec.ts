@@ -1,11 +1,15 @@
 import { BreakpointObserver, BreakpointState } from '@angular/cdk/layout';
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter } from '@angular/router';
 import { BehaviorSubject, Observable, map } from 'rxjs';
 import { routes } from '../app.routes';
+import { meOf } from '../session/me-fixture';
+import { Session } from '../session/session.store';
 import { HttpActivity } from './http-activity';
-import { navItemsFrom } from './nav-items';
+import { navItemsFrom, visibleNavItems } from './nav-items';
 import { Shell } from './shell';
 
 describe('Shell', () => {
@@ -16,14 +20,19 @@ describe('Shell', () => {
       phone.pipe(map((matches) => ({ matches, breakpoints: {} }))),
   };
 
-  beforeEach(() => {
+  beforeEach(async () => {
     TestBed.configureTestingModule({
+      imports: [Shell],
       providers: [
         provideRouter(routes),
+        provideHttpClient(),
+        provideHttpClientTesting(),
         { provide: BreakpointObserver, useValue: breakpoints },
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
     });
+    // The account bar is a deferred block: its component is resolved here.
+    await TestBed.compileComponents();
   });
 
   async function render(onPhone = false): Promise<ComponentFixture<Shell>> {
@@ -37,6 +46,23 @@ describe('Shell', () => {
     return (fixture.nativeElement as HTMLElement).querySelector<T>(selector);
   }
 
+  /** Signs the session in as `role` with `permissions`, as `/me` would answer. */
+  async function signInAs(role: string, permissions: string[], firms = 1): Promise<void> {
+    const loaded = TestBed.inject(Session).load();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/v1/me')
+      .flush(meOf(role, permissions, firms));
+    await loaded;
+  }
+
+  function navLinks(fixture: ComponentFixture<Shell>): string[][] {
+    return [
+      ...(fixture.nativeElement as HTMLElement).querySelectorAll<HTMLAnchorElement>(
+        'nav[aria-label="Main"] a',
+      ),
+    ].map((a) => [a.getAttribute('href') ?? '', a.textContent?.trim() ?? '']);
+  }
+
   it('shows the product name and a sign-in link to the API', async () => {
     const fixture = await render();
     expect(query(fixture, '.brand')?.textContent).toContain('Latchwork');
@@ -44,15 +70,49 @@ describe('Shell', () => {
     expect(signIn?.textContent).toContain('Sign in');
   });
 
-  it('lists exactly the navigation entries of the route table, plus the API reference', async () => {
+  it('signed in: shows the person, the firm and Sign out, and the pages of their role', async () => {
+    await signInAs('owner', ['members:read', 'members:write', 'settings:write', 'audit:read']);
     const fixture = await render();
-    const links = [
-      ...(fixture.nativeElement as HTMLElement).querySelectorAll<HTMLAnchorElement>(
-        'nav[aria-label="Main"] a',
-      ),
-    ];
-    const fromRoutes = navItemsFrom(routes).map((item) => [item.link, item.label]);
-    expect(links.map((a) => [a.getAttribute('href'), a.textContent?.trim()])).toEqual([
+    await fixture.whenStable();
+    const bar = query(fixture, '.top-bar')?.textContent ?? '';
+    expect(bar).toContain('Ivy Marchetti');
+    expect(bar).toContain('Kestrel Floorworks Ltd');
+    expect(bar).toContain('Sign out');
+    expect(query(fixture, 'a[href^="/api/v1/auth/login"]')).toBeNull();
+    expect(navLinks(fixture).map(([href]) => href)).toEqual([
+      '/',
+      '/team',
+      '/settings',
+      '/audit',
+      '/status',
+      '/api/v1/docs',
+    ]);
+  });
+
+  it('signed in with a role without those permissions: none of the owner pages', async () => {
+    await signInAs('installer', ['jobs:read', 'settings:read']);
+    const fixture = await render();
+    expect(navLinks(fixture).map(([href]) => href)).toEqual(['/', '/status', '/api/v1/docs']);
+  });
+
+  it('offers a firm menu only to a person of more than one firm', async () => {
+    await signInAs('bookkeeper', ['invoices:read'], 2);
+    const fixture = await render();
+    await fixture.whenStable();
+    expect(
+      query(fixture, 'button[aria-label="Firm: Kestrel Floorworks Ltd. Switch firm"]'),
+    ).not.toBeNull();
+  });
+
+  it('lists exactly the public navigation entries of the route table when signed out, plus the API reference', async () => {
+    const fixture = await render();
+    const links = navLinks(fixture);
+    const fromRoutes = visibleNavItems(navItemsFrom(routes), {
+      signedIn: false,
+      can: () => false,
+    }).map((item) => [item.link, item.label]);
+    expect(fromRoutes.map(([link]) => link)).toEqual(['/', '/status']);
+    expect(links).toEqual([
       ...fromRoutes.map(([link, label]) => [link, expect.stringContaining(label)]),
       ['/api/v1/docs', expect.stringContaining('API reference')],
     ]);

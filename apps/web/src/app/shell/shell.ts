@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
@@ -8,9 +8,12 @@ import { MatSidenav, MatSidenavContainer, MatSidenavContent } from '@angular/mat
 import { MatToolbar } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
 import { filter, map } from 'rxjs';
+import { returnToOf } from '../session/sign-in-link';
+import { Session } from '../session/session.store';
+import { AccountBar } from './account-bar';
 import { HttpActivity } from './http-activity';
 import { NavList } from './nav-list';
-import { navItemsFrom } from './nav-items';
+import { navItemsFrom, visibleNavItems } from './nav-items';
 
 /** Below this width the rail turns into a drawer behind a menu button (phones held upright). */
 export const PHONE_QUERY = '(max-width: 599.98px)';
@@ -33,6 +36,7 @@ export const PHONE_QUERY = '(max-width: 599.98px)';
     MatSidenavContainer,
     MatSidenavContent,
     NavList,
+    AccountBar,
   ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
@@ -42,9 +46,31 @@ export class Shell {
   private readonly router = inject(Router);
 
   protected readonly activity = inject(HttpActivity);
+  protected readonly session = inject(Session);
 
   /** Derived from the live route table, so a new route with nav data shows up by itself. */
-  protected readonly navItems = navItemsFrom(this.router.config);
+  private readonly allNavItems = navItemsFrom(this.router.config);
+
+  /** Only what the person's role may use; public pages for everyone. */
+  protected readonly navItems = computed(() =>
+    visibleNavItems(this.allNavItems, {
+      signedIn: this.session.signedIn(),
+      can: (permission) => this.session.can(permission),
+    }),
+  );
+
+  private readonly url = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map(() => this.router.url),
+    ),
+    { initialValue: this.router.url },
+  );
+
+  /** Sign in brings the person back to the page they are on (or were sent away from). */
+  protected readonly signInLink = computed(() =>
+    this.session.signInLink(returnToOf(this.url()) ?? '/'),
+  );
 
   protected readonly isPhone = toSignal(
     inject(BreakpointObserver)

@@ -1,7 +1,11 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
+import { ActivatedRoute, RouterLink } from '@angular/router';
+import { Session } from '../../session/session.store';
+import { safePath } from '../../session/sign-in-link';
+import { signInNotice } from './sign-in-notice';
 
 /** One thing Latchwork does, in the words a flooring contractor uses. */
 interface Feature {
@@ -25,6 +29,25 @@ interface Role {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class LandingPage {
+  private readonly session = inject(Session);
+  private readonly query = toSignal(inject(ActivatedRoute).queryParamMap, { requireSync: true });
+
+  /** The page a guard turned the person away from, or where their session ended. */
+  private readonly returnTo = computed(
+    () => this.session.returnTo() ?? safePath(this.query().get('returnTo')),
+  );
+
+  protected readonly signInLink = computed(() => this.session.signInLink(this.returnTo() ?? '/'));
+
+  /** Why the person is here: a session that ended, a failed sign-in, or a page that needs one. */
+  protected readonly notice = computed(() =>
+    signInNotice({
+      sessionEnded: this.session.signedOutReason() === 'session-ended',
+      failure: this.query().get('signin'),
+      returnTo: this.returnTo(),
+    }),
+  );
+
   protected readonly features: readonly Feature[] = [
     {
       icon: 'straighten',
