@@ -1,27 +1,20 @@
 // The app shell in a real browser: the frame, the fonts, the 404 page, keyboard use, phone
 // layout and accessibility, all served from 127.0.0.1 with nothing fetched from anywhere else.
-import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seriousA11yProblems } from './support/accessibility';
 import {
-  SCREENSHOT_DIR,
   appUrl,
+  expectClean,
+  shot,
   guardedContext,
   launchChromium,
   type GuardedContext,
 } from './support/browser';
+import { expectedAnswers } from './support/sign-in';
 
 const DESKTOP = { width: 1280, height: 800 };
 const PHONE = { width: 390, height: 844 };
-
-/**
- * The status page asks the API for its health; when a dependency (or the API) is down the
- * browser logs the non-2xx answer as a console error. That page shows the failure itself, so
- * only that one resource message is tolerated.
- */
-const healthAnswer = (text: string, url: string): boolean =>
-  text.startsWith('Failed to load resource') && new URL(url).pathname === '/api/v1/health';
 
 /** Font and icon state of the page once every font it asked for has settled. */
 async function fontState(page: Page) {
@@ -39,10 +32,6 @@ async function fontState(page: Page) {
       failed: faces.filter((f) => f.status === 'error').map((f) => `${f.family} ${f.weight}`),
     };
   });
-}
-
-async function shot(page: Page, name: string): Promise<void> {
-  await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
 }
 
 /** Opens an address of the app and waits until its page heading is on screen. */
@@ -63,11 +52,6 @@ async function drawerSettled(page: Page, open: boolean): Promise<void> {
   }, open);
 }
 
-function expectClean(guarded: GuardedContext): void {
-  expect(guarded.incidents.offHost, 'requests that left 127.0.0.1').toEqual([]);
-  expect(guarded.incidents.consoleErrors, 'console errors').toEqual([]);
-}
-
 describe('app shell in chromium', () => {
   let browser: Browser;
 
@@ -84,7 +68,7 @@ describe('app shell in chromium', () => {
     let page: Page;
 
     beforeAll(async () => {
-      guarded = await guardedContext(browser, { viewport: DESKTOP }, healthAnswer);
+      guarded = await guardedContext(browser, { viewport: DESKTOP }, expectedAnswers);
       page = await guarded.newPage();
     });
 
@@ -182,7 +166,7 @@ describe('app shell in chromium', () => {
       guarded = await guardedContext(
         browser,
         { viewport: PHONE, isMobile: true, hasTouch: true, deviceScaleFactor: 2 },
-        healthAnswer,
+        expectedAnswers,
       );
       page = await guarded.newPage();
     });

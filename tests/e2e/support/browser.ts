@@ -1,6 +1,7 @@
 // Shared set-up for browser tests: Debian's chromium driven by playwright-core, with guards that
 // record every request leaving 127.0.0.1 and every console error, so a test can fail on them.
 import { mkdirSync } from 'node:fs';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import {
   chromium,
@@ -9,6 +10,7 @@ import {
   type BrowserContextOptions,
   type Page,
 } from 'playwright-core';
+import { expect } from 'vitest';
 
 /** Where the app under test is served (the gateway of the test profile by default). */
 export const APP_URL = process.env['LW_APP_URL'] ?? 'http://127.0.0.1:14200';
@@ -88,4 +90,15 @@ export async function guardedContext(
 /** An absolute URL of the app under test. */
 export function appUrl(pathname: string): string {
   return new URL(pathname, APP_URL).toString();
+}
+
+/** Saves a full-page screenshot under tests/output/screenshots/ for a person to look at. */
+export async function shot(page: Page, name: string): Promise<void> {
+  await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
+}
+
+/** Fails the test on any request that left 127.0.0.1 and on any untolerated console error. */
+export function expectClean(guarded: GuardedContext): void {
+  expect(guarded.incidents.offHost, 'requests that left 127.0.0.1').toEqual([]);
+  expect(guarded.incidents.consoleErrors, 'console errors').toEqual([]);
 }
