@@ -27,6 +27,9 @@ export function startProcess(cfg, name, command, args, extraEnv = {}) {
     cwd: ROOT,
     env: { ...process.env, ...cfg.env, ...extraEnv, NX_DAEMON: 'false', NX_NO_CLOUD: 'true' },
     stdio: ['ignore', log, log],
+    // A process group of its own: Ctrl-C reaches only the starter, which then stops the
+    // children in order (front door first, databases last) instead of all at once.
+    detached: true,
   });
   closeSync(log);
   writeFileSync(path.join(runDir(cfg), `${name}.pid`), String(child.pid));
