@@ -47,7 +47,7 @@ function routesOf(express: Express): Route[] {
 }
 
 /** A valid body for each state-changing route, so a refusal cannot hide behind a 400. */
-const SAMPLE_BODIES: Record<string, () => object> = {
+const SAMPLE_BODIES: Record<string, (firm: string) => object> = {
   'POST /api/v1/auth/logout': () => ({}),
   'POST /api/v1/auth/provider-events': () => ({
     type: 'sign-in-failed',
@@ -64,11 +64,12 @@ const SAMPLE_BODIES: Record<string, () => object> = {
   'POST /api/v1/members/:userId/invitation': () => ({}),
   'PATCH /api/v1/members/:userId': () => ({ role: 'stores' }),
   'DELETE /api/v1/members/:userId': () => ({}),
-  'PUT /api/v1/settings': () => settingsA,
+  // A firm's own settings, unchanged: the walk must not rename anybody's firm.
+  'PUT /api/v1/settings': (firm) => settingsOf.get(firm) ?? {},
 };
 
 const ids = { tenantA: '', tenantB: '', targetUser: '' };
-let settingsA: object;
+const settingsOf = new Map<string, object>();
 let actorsA: { role: Role; userId: string }[];
 let ownerB: string;
 let nameA = '';
@@ -108,8 +109,16 @@ beforeAll(async () => {
       })
       .execute(),
   );
-  const owner = await sessionFor(deps.db, ownerA(), ids.tenantA);
-  settingsA = (await request(app).get('/api/v1/settings').set('Cookie', owner.cookie)).body;
+  for (const [firm, owner] of [
+    [ids.tenantA, ownerA()],
+    [ids.tenantB, ownerB],
+  ] as const) {
+    const session = await sessionFor(deps.db, owner, firm);
+    settingsOf.set(
+      firm,
+      (await request(app).get('/api/v1/settings').set('Cookie', session.cookie)).body,
+    );
+  }
 });
 
 async function call(route: Route, as?: { userId: string; tenantId: string }) {
@@ -121,7 +130,7 @@ async function call(route: Route, as?: { userId: string; tenantId: string }) {
     req = req.set('Cookie', session.cookie).set('X-XSRF-TOKEN', session.csrfToken);
   }
   if (route.method !== 'GET') {
-    const body = JSON.stringify(SAMPLE_BODIES[key]?.() ?? {});
+    const body = JSON.stringify(SAMPLE_BODIES[key]?.(as?.tenantId ?? ids.tenantA) ?? {});
     req = req.set('Content-Type', 'application/json');
     // The identity provider's event stream is public but signed; sign it as the provider would.
     if (key === 'POST /api/v1/auth/provider-events')

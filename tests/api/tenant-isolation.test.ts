@@ -7,7 +7,7 @@ import { demoIds } from './sessions';
 const { deps } = createTestApi();
 afterAll(() => deps.close());
 
-const TENANT_TABLES = ['membership', 'audit_log', 'file', 'email_log'];
+const TENANT_TABLES = ['audit_log', 'email_log', 'file', 'membership'];
 let a = '';
 let b = '';
 
@@ -35,7 +35,7 @@ describe('row-level security, the second wall', () => {
       select c.relname, c.relrowsecurity, c.relforcerowsecurity from pg_class c
       join information_schema.columns col on col.table_name = c.relname and col.column_name = 'tenant_id' and col.table_schema = 'public'
       where c.relkind = 'r'`.execute(deps.db);
-    expect(rows.map((r) => r.relname).sort()).toEqual(expect.arrayContaining(TENANT_TABLES.sort()));
+    expect(rows.map((r) => r.relname).sort()).toEqual(expect.arrayContaining(TENANT_TABLES));
     for (const r of rows)
       expect(r, r.relname).toMatchObject({ relrowsecurity: true, relforcerowsecurity: true });
   });
@@ -43,17 +43,18 @@ describe('row-level security, the second wall', () => {
   it("returns only the request's firm's rows to a raw select * inside its transaction", async () => {
     for (const table of TENANT_TABLES) {
       const rowsA = await withTenant(deps.db, { tenantId: a }, (tx) =>
-        sql<{ tenant_id: string }>`select * from ${sql.table(table)}`.execute(tx),
+        sql<{ tenantId: string }>`select * from ${sql.table(table)}`.execute(tx),
       );
       expect(
-        rowsA.rows.every((r) => r.tenant_id === a),
+        rowsA.rows.every((r) => r.tenantId === a),
         table,
       ).toBe(true);
     }
     const members = await withTenant(deps.db, { tenantId: a }, (tx) =>
-      sql<{ tenant_id: string }>`select * from membership`.execute(tx),
+      sql<{ tenantId: string }>`select * from membership`.execute(tx),
     );
     expect(members.rows.length).toBeGreaterThan(0);
+    expect(members.rows.every((r) => r.tenantId === a)).toBe(true);
   });
 
   it('shows nothing when no firm is set', async () => {

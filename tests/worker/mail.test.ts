@@ -26,6 +26,8 @@ const mailer = nodemailer.createTransport({
 });
 const logger = createLogger('worker-test', 'silent');
 let queue: Queue<MailJob>;
+// Keys of our own: the stack's running worker must not take these tests' jobs.
+const PREFIX = `test-worker-${process.pid}`;
 let tenantId: string;
 
 async function inbox(to: string): Promise<{ subject: string; text: string; to: unknown }[]> {
@@ -55,7 +57,7 @@ const logRow = (id: string) =>
   );
 
 beforeAll(async () => {
-  queue = createMailQueue(createRedisConnection(env('REDIS_URL')));
+  queue = createMailQueue(createRedisConnection(env('REDIS_URL')), PREFIX);
   const tenant = await db
     .selectFrom('tenant')
     .select('id')
@@ -77,6 +79,7 @@ describe('the mail job', () => {
       connection,
       { db, mailer, from: 'Latchwork <no-reply@latchwork.test>' },
       logger,
+      { prefix: PREFIX },
     );
     const to = `site-lead-${Date.now()}@wexbridge-motors.test`;
     const id = await enqueueMail(
@@ -115,6 +118,7 @@ describe('the mail job', () => {
       connection,
       { db, mailer: slowMailer, from: 'Latchwork <no-reply@latchwork.test>' },
       logger,
+      { prefix: PREFIX },
     );
     const to = `graceful-${Date.now()}@wexbridge-motors.test`;
     const id = await enqueueMail(
@@ -143,6 +147,7 @@ describe('the mail job', () => {
       connection,
       { db, mailer: refusing, from: 'x@latchwork.test' },
       logger,
+      { prefix: PREFIX },
     );
     const id = await enqueueMail(
       db,

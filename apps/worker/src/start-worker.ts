@@ -5,8 +5,17 @@ import { MAIL_QUEUE, type MailJob } from '@latchwork/shared-queues';
 import { mailProcessor, type MailProcessorDeps } from './mail.processor';
 
 /** Starts one BullMQ worker per queue. Returned so tests and main.ts can close them. */
-export function startWorkers(connection: Redis, deps: MailProcessorDeps, logger: Logger): Worker[] {
-  const mail = new Worker<MailJob>(MAIL_QUEUE, mailProcessor(deps), { connection, concurrency: 4 });
+export function startWorkers(
+  connection: Redis,
+  deps: MailProcessorDeps,
+  logger: Logger,
+  options: { prefix?: string } = {},
+): Worker[] {
+  const mail = new Worker<MailJob>(MAIL_QUEUE, mailProcessor(deps), {
+    connection,
+    concurrency: 4,
+    prefix: options.prefix,
+  });
   for (const worker of [mail]) {
     worker.on('completed', (job) => logger.info({ queue: worker.name, jobId: job.id }, 'job done'));
     worker.on('failed', (job, err) =>

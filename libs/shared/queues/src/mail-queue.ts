@@ -23,8 +23,16 @@ export const MAIL_JOB_OPTIONS: JobsOptions = {
   removeOnFail: false,
 };
 
-export function createMailQueue(connection: ConnectionOptions): Queue<MailJob> {
-  return new Queue<MailJob>(MAIL_QUEUE, { connection, defaultJobOptions: MAIL_JOB_OPTIONS });
+/**
+ * `prefix` namespaces the queue's Redis keys (BullMQ's default is `bull`); tests use their
+ * own so that a running worker does not take their jobs.
+ */
+export function createMailQueue(connection: ConnectionOptions, prefix?: string): Queue<MailJob> {
+  return new Queue<MailJob>(MAIL_QUEUE, {
+    connection,
+    prefix,
+    defaultJobOptions: MAIL_JOB_OPTIONS,
+  });
 }
 
 /**

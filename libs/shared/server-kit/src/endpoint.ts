@@ -84,7 +84,10 @@ export function routerFor(endpoints: readonly EndpointDef[], options: RouterOpti
       const query = parsePart(def.query, req.query, 'query');
       const params = parsePart(def.params, req.params, 'params');
       const result = await def.handle({ body, query, params, req, res } as never);
-      if (!res.headersSent) res.status(def.status ?? 200).json(result);
+      if (res.headersSent) return;
+      // A handler may pick the status itself (health answers 503 when degraded).
+      const status = res.statusCode !== 200 ? res.statusCode : (def.status ?? 200);
+      res.status(status).json(result);
     });
   }
   return router;
