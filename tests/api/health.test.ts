@@ -24,6 +24,7 @@ describe('GET /api/v1/health', () => {
       lazyConnect: true,
       retryStrategy: () => null,
     });
+    deadRedis.on('error', () => undefined);
     const degraded = createApp({ ...deps, redis: deadRedis });
     const res = await request(degraded).get('/api/v1/health').expect(503);
     expect(res.body.status).toBe('degraded');
