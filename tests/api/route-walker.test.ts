@@ -2,7 +2,7 @@ import request from 'supertest';
 import type { Express } from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { withTenant } from '@latchwork/shared-db';
-import { isPermission, ROLES, roleHas, type Role } from '@latchwork/identity-domain';
+import { isPermission, ROLES, roleHas, type Role } from '@latchwork/shared-access';
 import { routeAccess } from '../../apps/api/src/app';
 import { signProviderEvent } from '@latchwork/identity-server';
 import { createTestApi } from './api-harness';

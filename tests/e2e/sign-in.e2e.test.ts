@@ -2,7 +2,7 @@
 // navigation that role should see, switching firm, the owner's pages, and signing out. All
 // traffic stays on 127.0.0.1.
 // Relative: the e2e project's vitest does not resolve the workspace's path aliases.
-import { ROLES, type Role } from '../../libs/identity/domain/src/index';
+import { ROLES, type Role } from '@latchwork/shared-access';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl, expectClean, shot, guardedContext, launchChromium } from './support/browser';

@@ -3,12 +3,7 @@
 // app's one route table and the permission table rather than listed by hand.
 import { readFileSync } from 'node:fs';
 // A relative import: the e2e project's vitest does not resolve the workspace's path aliases.
-import {
-  PERMISSIONS,
-  roleHas,
-  type Access,
-  type Role,
-} from '../../../libs/identity/domain/src/index';
+import { PERMISSIONS, roleHas, type Access, type Role } from '@latchwork/shared-access';
 import type { Page } from 'playwright-core';
 import { appUrl } from './browser';
 

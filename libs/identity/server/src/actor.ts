@@ -2,7 +2,7 @@ import type { Kysely } from 'kysely';
 import type { RequestHandler } from 'express';
 import type { Database } from '@latchwork/shared-db';
 import { ForbiddenError, UnauthenticatedError } from '@latchwork/shared-server-kit';
-import { isPermission, roleHas } from '@latchwork/identity-domain';
+import { isPermission, roleHas } from '@latchwork/shared-access';
 import { loadActor } from './identity.repository';
 
 /**

@@ -3,7 +3,7 @@ import { withTenant } from '@latchwork/shared-db';
 import { endpoint } from '@latchwork/shared-server-kit';
 import { listAudit } from './audit';
 import type { IdentityDeps } from './identity-deps';
-import { scopeOf } from './request-context';
+import { scopeOf } from '@latchwork/shared-server-kit';
 
 export function auditEndpoints(deps: IdentityDeps) {
   return [

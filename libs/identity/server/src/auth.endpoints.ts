@@ -6,7 +6,7 @@ import { recordAuditInTenants } from './audit';
 import { findUserByEmail, markJoined, membershipsOfUser } from './identity.repository';
 import type { IdentityDeps } from './identity-deps';
 import { SESSION_COOKIE } from './session';
-import { actorOf } from './request-context';
+import { actorOf } from '@latchwork/shared-server-kit';
 
 /** Only same-site paths: an open redirect would let a link send people to another site after sign-in. */
 const safeReturnTo = z

@@ -1,7 +1,7 @@
 import { sql, type Kysely } from 'kysely';
 import { withTenant, type Database } from '@latchwork/shared-db';
-import { isRole, permissionsOf } from '@latchwork/identity-domain';
-import type { Actor } from './request-context';
+import { isRole, permissionsOf } from '@latchwork/shared-access';
+import type { Actor } from '@latchwork/shared-server-kit';
 
 export interface MembershipSummary {
   tenantId: string;

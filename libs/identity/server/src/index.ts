@@ -1,4 +1,3 @@
-export * from './request-context';
 export * from './identity-deps';
 export * from './idp-admin';
 export * from './oidc-client';

@@ -2,10 +2,10 @@ import { z } from 'zod';
 import { withTenant, type TenantScope } from '@latchwork/shared-db';
 import { ConflictError, endpoint, NotFoundError } from '@latchwork/shared-server-kit';
 import { enqueueMail } from '@latchwork/shared-queues';
-import { ROLES } from '@latchwork/identity-domain';
+import { ROLES } from '@latchwork/shared-access';
 import { recordAudit } from './audit';
 import type { IdentityDeps } from './identity-deps';
-import { actorOf, scopeOf } from './request-context';
+import { actorOf, scopeOf } from '@latchwork/shared-server-kit';
 import {
   addMembership,
   deleteMembership,

@@ -2,6 +2,17 @@ import session from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
 import type { Pool } from 'pg';
 
+declare module 'express-session' {
+  interface SessionData {
+    userId?: string;
+    tenantId?: string;
+    /** Kept for the identity provider's sign-out (id_token_hint). */
+    idToken?: string;
+    csrfToken?: string;
+    returnTo?: string;
+  }
+}
+
 export const SESSION_COOKIE = 'lw.sid';
 /** Idle time after which a session ends; every request pushes it back (rolling). */
 export const SESSION_IDLE_MS = 8 * 60 * 60 * 1000;

@@ -3,7 +3,7 @@ import { withTenant } from '@latchwork/shared-db';
 import { endpoint } from '@latchwork/shared-server-kit';
 import { recordAudit } from './audit';
 import type { IdentityDeps } from './identity-deps';
-import { actorOf, scopeOf } from './request-context';
+import { actorOf, scopeOf } from '@latchwork/shared-server-kit';
 
 const prefix = z
   .string()

@@ -6,7 +6,7 @@ type Timestamp = ColumnType<Date, Date | string, Date | string>;
 /** A column the database fills with its default when an insert leaves it out. */
 type Defaulted<T> = ColumnType<T, T | undefined, T>;
 
-/** The role column's values; the database's check constraint and @latchwork/identity-domain's ROLES agree. */
+/** The role column's values; the database's check constraint and @latchwork/shared-access's ROLES agree. */
 export type Role = 'owner' | 'estimator' | 'stores' | 'bookkeeper' | 'installer';
 
 export type UnitSystem = 'metric' | 'imperial';

@@ -3,3 +3,4 @@ export * from './error-handler';
 export * from './endpoint';
 export * from './openapi';
 export * from './logger';
+export * from './request-context';

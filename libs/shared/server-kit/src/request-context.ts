@@ -1,7 +1,7 @@
 import type { Request } from 'express';
 import type { TenantScope } from '@latchwork/shared-db';
-import { UnauthenticatedError } from '@latchwork/shared-server-kit';
-import type { Permission, Role } from '@latchwork/identity-domain';
+import { UnauthenticatedError } from './errors';
+import type { Permission, Role } from '@latchwork/shared-access';
 
 /** Who is calling, in which firm, with which role: loaded afresh for every request. */
 export interface Actor {
@@ -11,17 +11,6 @@ export interface Actor {
   tenantId: string;
   role: Role;
   permissions: Permission[];
-}
-
-declare module 'express-session' {
-  interface SessionData {
-    userId?: string;
-    tenantId?: string;
-    /** Kept for the identity provider's sign-out (id_token_hint). */
-    idToken?: string;
-    csrfToken?: string;
-    returnTo?: string;
-  }
 }
 
 declare module 'express-serve-static-core' {
