@@ -3,7 +3,6 @@ import path from 'node:path';
 import { startPostgres, stopPostgres } from './postgres.mjs';
 import { startRedis, stopRedis } from './redis.mjs';
 import { runStep, startProcess, stopProcesses, waitForUrl } from './processes.mjs';
-import { ensureDemoAccounts } from '../demo/identity-accounts.mjs';
 
 const FAKES = ['identity-provider', 'object-store', 'mail', 'payments'];
 
@@ -34,6 +33,9 @@ export async function startServices(cfg, log) {
     throw new Error('migration failed');
   if (!tsx(cfg, ['docker-free-dev/lib/db-tasks.ts', 'seed-if-empty']).ok)
     throw new Error('loading the demo data failed');
+  // Imported here, not at the top: start and test scripts load this module before
+  // `npm ci` has run on a fresh clone, and this one needs npm packages.
+  const { ensureDemoAccounts } = await import('../demo/identity-accounts.mjs');
   const accounts = await ensureDemoAccounts(cfg);
   if (accounts) log(`Demo sign-ins created at the identity provider: ${accounts}`);
 }
