@@ -63,6 +63,16 @@ const SAMPLE_BODIES: Record<string, (firm: string) => object> = {
   }),
   'POST /api/v1/members/:userId/invitation': () => ({}),
   'PATCH /api/v1/members/:userId': () => ({ role: 'stores' }),
+  'POST /api/v1/takeoffs/compute': () => ({
+    outline: [
+      [0, 0],
+      [3000, 0],
+      [3000, 2000],
+      [0, 2000],
+    ],
+    tile: { pitchMm: 500 },
+  }),
+  'PUT /api/v1/takeoffs/rates': () => ({}),
   'DELETE /api/v1/members/:userId': () => ({}),
   // A firm's own settings, unchanged: the walk must not rename anybody's firm.
   'PUT /api/v1/settings': (firm) => settingsOf.get(firm) ?? {},

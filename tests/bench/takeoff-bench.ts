@@ -16,7 +16,7 @@ import {
   optimiseOrigin,
   type Point,
   type TakeoffInput,
-} from '../../libs/takeoff/src/index';
+} from '../../libs/takeoff/domain/src/index';
 
 const quick = process.argv.includes('--quick');
 

@@ -22,6 +22,7 @@ import {
   settingsEndpoints,
   type IdentityDeps,
 } from '@latchwork/identity-server';
+import { takeoffEndpoints } from '@latchwork/takeoff-server';
 import type { ApiDeps } from './deps';
 import { healthEndpoints } from './health/health.endpoints';
 import { DOCS_ROUTES, docsRouter } from './docs/docs.router';
@@ -48,6 +49,7 @@ export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
     ...memberEndpoints(identity),
     ...settingsEndpoints(identity),
     ...auditEndpoints(identity),
+    ...takeoffEndpoints({ db: deps.db }),
   ];
   const document = () =>
     buildOpenApiDocument(endpoints, {

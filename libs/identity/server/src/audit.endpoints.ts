@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { withTenant } from '@latchwork/shared-db';
 import { endpoint } from '@latchwork/shared-server-kit';
-import { listAudit } from './audit';
+import { listAudit } from '@latchwork/shared-db';
 import type { IdentityDeps } from './identity-deps';
 import { scopeOf } from '@latchwork/shared-server-kit';
 

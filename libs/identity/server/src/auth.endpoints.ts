@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Request } from 'express';
 import { endpoint } from '@latchwork/shared-server-kit';
 import { issueCsrfToken } from './csrf';
-import { recordAuditInTenants } from './audit';
+import { recordAuditInTenants } from '@latchwork/shared-db';
 import { findUserByEmail, markJoined, membershipsOfUser } from './identity.repository';
 import type { IdentityDeps } from './identity-deps';
 import { SESSION_COOKIE } from './session';

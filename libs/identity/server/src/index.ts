@@ -4,7 +4,6 @@ export * from './oidc-client';
 export * from './session';
 export * from './csrf';
 export * from './actor';
-export * from './audit';
 export * from './auth.endpoints';
 export * from './provider-events.endpoints';
 export * from './me.endpoints';

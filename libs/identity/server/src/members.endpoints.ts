@@ -3,7 +3,7 @@ import { withTenant, type TenantScope } from '@latchwork/shared-db';
 import { ConflictError, endpoint, NotFoundError } from '@latchwork/shared-server-kit';
 import { enqueueMail } from '@latchwork/shared-queues';
 import { ROLES } from '@latchwork/shared-access';
-import { recordAudit } from './audit';
+import { recordAudit } from '@latchwork/shared-db';
 import type { IdentityDeps } from './identity-deps';
 import { actorOf, scopeOf } from '@latchwork/shared-server-kit';
 import {

@@ -1,7 +1,7 @@
 import { createHmac, timingSafeEqual } from 'node:crypto';
 import { z } from 'zod';
 import { endpoint, UnauthenticatedError } from '@latchwork/shared-server-kit';
-import { recordAuditInTenants } from './audit';
+import { recordAuditInTenants } from '@latchwork/shared-db';
 import { findUserByEmail, membershipsOfUser } from './identity.repository';
 import type { IdentityDeps } from './identity-deps';
 

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { withTenant } from '@latchwork/shared-db';
 import { endpoint } from '@latchwork/shared-server-kit';
-import { recordAudit } from './audit';
+import { recordAudit } from '@latchwork/shared-db';
 import type { IdentityDeps } from './identity-deps';
 import { actorOf, scopeOf } from '@latchwork/shared-server-kit';
 

@@ -29,6 +29,8 @@ export interface Database {
     defaultTaxRateBp: Defaulted<number>;
     paymentTermsDays: Defaulted<number>;
     numberPrefixes: Defaulted<Record<string, string>>;
+    /** Overrides of the takeoff engine's default rates, by rate name. */
+    takeoffRates: Defaulted<Record<string, unknown>>;
     createdAt: CreatedAt;
   };
   appUser: {

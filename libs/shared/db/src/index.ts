@@ -2,3 +2,4 @@ export * from './database';
 export * from './connect';
 export * from './tenant-scope';
 export * from './migrate';
+export * from './audit';

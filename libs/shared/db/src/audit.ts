@@ -1,5 +1,6 @@
 import type { Kysely } from 'kysely';
-import { withTenant, type Database, type TenantScope, type Tx } from '@latchwork/shared-db';
+import type { Database } from './database';
+import { withTenant, type TenantScope, type Tx } from './tenant-scope';
 
 export type AuditAction =
   | 'sign-in'

@@ -1,0 +1,2 @@
+export * from './takeoff.endpoints';
+export * from './takeoff.schemas';
