@@ -1,7 +1,7 @@
 import { Type, reflectComponentType } from '@angular/core';
 import { Route } from '@angular/router';
 import { isObservable, lastValueFrom } from 'rxjs';
-import { isPermission } from '@latchwork/identity-domain';
+import { isPermission } from '@latchwork/shared-access';
 import { routes } from './app.routes';
 import { navItemsFrom } from './shell/nav-items';
 

@@ -1,6 +1,6 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { Role } from '@latchwork/identity-domain';
+import type { Role } from '@latchwork/shared-access';
 import { Observable } from 'rxjs';
 import { SHOW_ERROR_SNACKBAR } from '../shell/api-error-interceptor';
 

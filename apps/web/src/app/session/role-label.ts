@@ -1,4 +1,4 @@
-import { ROLES, type Role } from '@latchwork/identity-domain';
+import { ROLES, type Role } from '@latchwork/shared-access';
 
 /** The words people use for each role, as shown on screen. */
 const LABELS: Readonly<Record<Role, string>> = {

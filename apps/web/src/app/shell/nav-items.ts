@@ -1,5 +1,5 @@
 import { Data, Routes } from '@angular/router';
-import type { Access } from '@latchwork/identity-domain';
+import type { Access } from '@latchwork/shared-access';
 
 /** What a route shows in the navigation rail/drawer. */
 export interface NavEntry {

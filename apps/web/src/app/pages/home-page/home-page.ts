@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatIcon } from '@angular/material/icon';
 import { Router, RouterLink } from '@angular/router';
-import { permissionsOf, isRole } from '@latchwork/identity-domain';
+import { permissionsOf, isRole } from '@latchwork/shared-access';
 import { roleLabel } from '../../session/role-label';
 import { Session } from '../../session/session.store';
 import { navItemsFrom, visibleNavItems } from '../../shell/nav-items';

@@ -6,7 +6,7 @@ import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import type { Role } from '@latchwork/identity-domain';
+import type { Role } from '@latchwork/shared-access';
 import { firstValueFrom } from 'rxjs';
 import { showProblems } from '../../api/api-problems';
 import { Member, MembersApi } from '../../api/members-api';

@@ -5,7 +5,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIcon } from '@angular/material/icon';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import type { Role } from '@latchwork/identity-domain';
+import type { Role } from '@latchwork/shared-access';
 import { firstValueFrom } from 'rxjs';
 import { errorText } from '../../api/api-problems';
 import { Member, MembersApi } from '../../api/members-api';
