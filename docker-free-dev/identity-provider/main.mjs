@@ -6,8 +6,8 @@
 //   PostgreSQL; a JSON file under LW_DATA_DIR otherwise), IDP_ADMIN_TOKEN (admin API),
 //   IDP_EVENT_URL (sign-in events; empty turns them off) and IDP_EVENT_SECRET, LW_DATA_DIR
 //   (<repo>/.local/data).
-import { fileURLToPath } from 'node:url';
 import { DEFAULT_EVENT_URL } from './provider-events.mjs';
+import { defaultDataDir, runFake } from '../lib/run-fake.mjs';
 import { DEFAULT_CLIENT_SECRET, start } from './server.mjs';
 
 const env = process.env;
@@ -19,8 +19,8 @@ const list = (value, fallback) =>
     .filter(Boolean);
 const port = Number(env['IDP_PORT'] || 3400);
 
-try {
-  const idp = await start({
+await runFake('identity-provider', () =>
+  start({
     port,
     issuer: env['IDP_ISSUER'] || `http://127.0.0.1:${port}`,
     clientId: env['IDP_CLIENT_ID'] || 'latchwork',
@@ -34,24 +34,6 @@ try {
     // Set but empty means "send no events"; unset means the local app's default address.
     eventUrl: env['IDP_EVENT_URL'] ?? DEFAULT_EVENT_URL,
     eventSecret: env['IDP_EVENT_SECRET'] || undefined,
-    dataDir: env['LW_DATA_DIR'] || fileURLToPath(new URL('../../.local/data', import.meta.url)),
-  });
-  console.log(`identity-provider listening on ${idp.url}`);
-  let closing = false;
-  const stop = async () => {
-    if (closing) return;
-    closing = true;
-    try {
-      await idp.close();
-      process.exit(0);
-    } catch (error) {
-      console.error('identity-provider: error while closing', error);
-      process.exit(1);
-    }
-  };
-  process.on('SIGTERM', stop);
-  process.on('SIGINT', stop);
-} catch (error) {
-  console.error('identity-provider: could not start:', error);
-  process.exit(1);
-}
+    dataDir: defaultDataDir(),
+  }),
+);
