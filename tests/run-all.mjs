@@ -76,13 +76,16 @@ try {
   await stopAll(cfg);
   freshDataDir();
 
-  check('format', 'npx', ['prettier', '--check', '.', '--log-level=warn']);
+  check('format', 'npx', ['prettier', '--check', '.']);
   // One ESLint run over the whole tree: the projects and tests/, which is not an Nx project.
+  // The module-boundary rule reads Nx's project graph and silently skips itself without
+  // one, as on a fresh clone: compute the graph first.
+  runStep(cfg, 'npx', ['nx', 'show', 'projects'], { capture: true });
   check('lint', 'npx', ['eslint', '.', '--max-warnings=0']);
   check('typecheck', 'npx', ['nx', 'run-many', '-t', 'typecheck', '--output-style=static']);
   check('typecheck tests', 'npx', ['tsc', '-p', 'tests/tsconfig.json', '--noEmit']);
   check('typecheck fakes', 'npx', ['tsc', '-p', 'tests/fakes/tsconfig.json', '--noEmit']);
-  vitest('unit', []);
+  vitest('unit', ['--config', 'tests/vitest.unit.config.ts']);
 
   log('web component tests …');
   const web = runStep(cfg, 'npx', ['nx', 'run', 'web:test', '--output-style=static'], {
