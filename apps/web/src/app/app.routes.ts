@@ -25,6 +25,16 @@ export const routes: Routes = [
     loadComponent: () => import('./pages/landing-page/landing-page').then((m) => m.LandingPage),
   },
   {
+    path: 'takeoff',
+    title: 'Takeoff · Latchwork',
+    canActivate: [accessGuard],
+    data: navData('Takeoff', 'grid_on', {
+      permission: 'takeoffs:read',
+      hint: 'Measure a floor and see its tile layout, cuts, materials and hours.',
+    }),
+    loadComponent: () => import('./takeoff/takeoff-page').then((m) => m.TakeoffPage),
+  },
+  {
     path: 'team',
     title: 'Team · Latchwork',
     canActivate: [accessGuard],
