@@ -22,7 +22,15 @@ const nodeOnly = [
  */
 function boundaries({ tests }) {
   const domainExternals = tests
-    ? ['decimal.js', 'vitest', 'vitest/*', 'fast-check', 'polygon-clipping', '@flatten-js/core']
+    ? [
+        'decimal.js',
+        'vitest',
+        'vitest/*',
+        'fast-check',
+        'polygon-clipping',
+        '@flatten-js/core',
+        'simple-statistics',
+      ]
     : ['decimal.js'];
   const neutralBanned = tests ? nodeOnly : [...nodeOnly, 'node:*'];
   return [
