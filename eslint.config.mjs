@@ -46,6 +46,8 @@ function boundaries({ tests }) {
           sourceTag: 'scope:identity',
           onlyDependOnLibsWithTags: ['scope:identity', 'scope:shared'],
         },
+        { sourceTag: 'scope:stock', onlyDependOnLibsWithTags: ['scope:stock', 'scope:shared'] },
+        { sourceTag: 'scope:jobs', onlyDependOnLibsWithTags: ['scope:jobs', 'scope:shared'] },
         // type: layers depend downwards only
         {
           sourceTag: 'type:app',
