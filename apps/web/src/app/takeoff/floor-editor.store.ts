@@ -50,6 +50,8 @@ export class FloorEditor {
   readonly stale = computed(() => this.problems().length > 0);
   /** Milliseconds the last computeTakeoff took in this browser. */
   readonly computeMs = signal<number | null>(null);
+  /** How many takeoffs this page has computed (tells one timing from the next). */
+  readonly computeRuns = signal(0);
 
   private timer: ReturnType<typeof setTimeout> | undefined;
 
@@ -120,6 +122,7 @@ export class FloorEditor {
       const started = performance.now();
       const result = computeTakeoff(input);
       this.computeMs.set(performance.now() - started);
+      this.computeRuns.update((n) => n + 1);
       this.result.set(result);
       this.problems.set([]);
       // Slivers: look for an origin that removes them, after the plan has been drawn.

@@ -9,6 +9,7 @@ import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import {
   MatExpansionPanel,
+  MatExpansionPanelContent,
   MatExpansionPanelHeader,
   MatExpansionPanelTitle,
 } from '@angular/material/expansion';
@@ -42,6 +43,7 @@ import { FirmRatesPanel } from './rates/firm-rates-panel';
     MatButtonToggle,
     MatButtonToggleGroup,
     MatExpansionPanel,
+    MatExpansionPanelContent,
     MatExpansionPanelHeader,
     MatExpansionPanelTitle,
     MatFormField,
