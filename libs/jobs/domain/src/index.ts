@@ -1,0 +1,8 @@
+/**
+ * @latchwork/jobs-domain — jobs, pipeline and site-survey rules for flooring contractors.
+ * Pure TypeScript with no imports: runs in Node and in the browser.
+ */
+export * from './stages';
+export { STAGE_MOVES, moveRule, type MoveKind, type MoveRule } from './stage-table';
+export * from './stage-moves';
+export * from './references';
