@@ -4,6 +4,8 @@
 // in-browser recompute takes for the garage and for a 10,000 m² hall.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { type FloorDraft, exampleFloor } from '../../apps/web/src/app/takeoff/model/floor-draft';
+import type { Units } from '../../apps/web/src/app/takeoff/model/lengths';
 import {
   SCREENSHOT_DIR,
   appUrl,
@@ -55,12 +57,18 @@ async function timings(page: Page, times: number): Promise<number[]> {
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 /** A 10,000 m² L-shaped hall (125 × 100 m less a 50 × 50 m corner) with 200 columns. */
-function hallFloor(units: string): unknown {
+function hallFloor(units: Units): FloorDraft {
   const columns = [];
   for (let a = 0; a < 20; a++)
     for (let b = 0; b < 10; b++)
-      columns.push({ kind: 'rect', x: 3000 + a * 3500, y: 3000 + b * 4500, w: 400, l: 400 });
-  const outline = [
+      columns.push({
+        kind: 'rect' as const,
+        x: 3000 + a * 3500,
+        y: 3000 + b * 4500,
+        w: 400,
+        l: 400,
+      });
+  const outline: [number, number][] = [
     [0, 0],
     [125_000, 0],
     [125_000, 50_000],
@@ -69,28 +77,12 @@ function hallFloor(units: string): unknown {
     [0, 100_000],
   ];
   return {
+    ...exampleFloor(units),
     name: 'Hall',
-    units,
     outline,
     source: 'points',
-    walk: { start: [0, 0], headingDeg: 0, walls: [] },
     obstacles: columns,
     doorways: [],
-    adhesive: [],
-    levelling: [],
-    pitchMm: 500,
-    gapMm: 5,
-    origin: { mode: 'centre' },
-    pattern: {
-      kind: 'single',
-      colour: 'Slate grey',
-      colour2: 'Black',
-      borderRows: 1,
-      stripeColours: 'Slate grey',
-      stripeWidth: 2,
-      stripeDirection: 'rows',
-      bays: [],
-    },
   };
 }
 
@@ -150,6 +142,23 @@ describe('takeoff page', () => {
       await expectTiles(page, '152');
       await shot(page, 'takeoff-desktop');
 
+      // Hovering a cut tile tells its size; imperial shows feet and inches (NIST SP 811:
+      // 6000 mm = 236.22 in = 19' 8.22").
+      await page.locator('path.cut').first().hover();
+      expect(await page.locator('.tip').innerText()).toMatch(/^Cut tile 1 of \d+: \d+(\.\d)? mm$/);
+      await page
+        .getByRole('radio', { name: 'Imperial' })
+        .or(page.getByRole('button', { name: 'Imperial' }))
+        .first()
+        .click();
+      await expect.poll(() => page.getByLabel('Width (x)').inputValue()).toBe(`19' 8.22"`);
+      await page
+        .getByRole('radio', { name: 'Metric' })
+        .or(page.getByRole('button', { name: 'Metric' }))
+        .first()
+        .click();
+      await expect.poll(() => page.getByLabel('Width (x)').inputValue()).toBe('6000');
+
       // Paper: plan and bill only.
       await page.emulateMedia({ media: 'print' });
       await shot(page, 'takeoff-print');
@@ -195,7 +204,7 @@ describe('takeoff page', () => {
         )
         .toBeGreaterThan(39_000);
       const hallShown = Date.now() - loadStart;
-      const hall = await timings(page, 6);
+      const hall = await timings(page, 10);
       await shot(page, 'takeoff-hall');
       console.log(
         `in-browser computeTakeoff, ms — garage: ${garage.map((t) => t.toFixed(1)).join(', ')} (median ${median(garage).toFixed(1)}); ` +
