@@ -1,0 +1,39 @@
+/**
+ * @latchwork/stock-domain — the stock computations: money and quantities, valuation,
+ * reorder, batch choice and picking, count variances, input checks. Pure TypeScript with no
+ * imports: runs in Node and in the browser.
+ */
+export { divRound, mulDivRound, MONEY_ROUNDING, type RoundingMode } from './rounding';
+export {
+  extendCost,
+  formatDecimal,
+  formatMoney,
+  parseDecimal,
+  parseMoney,
+  type Minor,
+} from './money';
+export {
+  formatPacks,
+  formatQuantity,
+  packsToCover,
+  parseQuantity,
+  type Noun,
+  type UnitNames,
+} from './quantity';
+export { StockInputError, problem, type StockProblem, type StockProblemCode } from './problems';
+export {
+  signedQuantity,
+  type CostLine,
+  type MovementKind,
+  type ValuationMovement,
+  type ValuationOptions,
+} from './valuation/movements';
+export {
+  EMPTY_STOCK,
+  applyAverageCost,
+  averageUnitCost,
+  weightedAverageCost,
+  type AverageCostResult,
+  type AverageCostState,
+} from './valuation/weighted-average';
+export { fifoCost, type FifoLayer, type FifoResult } from './valuation/fifo';
