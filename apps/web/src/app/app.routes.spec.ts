@@ -16,6 +16,7 @@ describe('app route table', () => {
   it('derives the navigation from the routes that carry nav data, in table order', () => {
     expect(navItemsFrom(routes).map((item) => [item.link, item.label, item.access])).toEqual([
       ['/', 'Home', 'public'],
+      ['/takeoff', 'Takeoff', 'takeoffs:read'],
       ['/team', 'Team', 'members:read'],
       ['/settings', 'Firm settings', 'settings:write'],
       ['/audit', 'Audit log', 'audit:read'],
