@@ -6,3 +6,6 @@ export * from './stages';
 export { STAGE_MOVES, moveRule, type MoveKind, type MoveRule } from './stage-table';
 export * from './stage-moves';
 export * from './references';
+export * from './slab-limits';
+export * from './slab-readings';
+export * from './survey-warnings';
