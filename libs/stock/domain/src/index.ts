@@ -37,3 +37,26 @@ export {
   type AverageCostState,
 } from './valuation/weighted-average';
 export { fifoCost, type FifoLayer, type FifoResult } from './valuation/fifo';
+export { inverseNormalCdf } from './reorder/normal';
+export {
+  dailyDemandSeries,
+  dayNumber,
+  daysBetween,
+  demandStats,
+  type DemandEvent,
+  type DemandStats,
+} from './reorder/demand';
+export {
+  economicOrderQuantity,
+  reorderPoint,
+  safetyStock,
+  serviceLevelZ,
+} from './reorder/formulas';
+export {
+  reorderSuggestion,
+  type ReorderProduct,
+  type ReorderReason,
+  type ReorderSettings,
+  type ReorderSuggestion,
+  type StockPosition,
+} from './reorder/suggestion';
