@@ -9,3 +9,7 @@ export * from './references';
 export * from './slab-limits';
 export * from './slab-readings';
 export * from './survey-warnings';
+export * from './money';
+export * from './csv';
+export * from './pipeline';
+export * from './pipeline-csv';
