@@ -13,3 +13,4 @@ export * from './money';
 export * from './csv';
 export * from './pipeline';
 export * from './pipeline-csv';
+export * from './mentions';
