@@ -37,7 +37,6 @@ export {
   type AverageCostState,
 } from './valuation/weighted-average';
 export { fifoCost, type FifoLayer, type FifoResult } from './valuation/fifo';
-export { inverseNormalCdf } from './reorder/normal';
 export {
   dailyDemandSeries,
   dayNumber,
@@ -48,6 +47,7 @@ export {
 } from './reorder/demand';
 export {
   economicOrderQuantity,
+  inverseNormalCdf,
   reorderPoint,
   safetyStock,
   serviceLevelZ,
@@ -60,3 +60,28 @@ export {
   type ReorderSuggestion,
   type StockPosition,
 } from './reorder/suggestion';
+export {
+  chooseBatches,
+  type BatchChoice,
+  type BatchPick,
+  type ChooseOptions,
+} from './batches/reserve';
+export {
+  available,
+  fefoOrder,
+  fefoPickingList,
+  isExpired,
+  type BatchStock,
+  type PickLine,
+  type PickSource,
+  type PickingList,
+} from './batches/picking';
+export {
+  countVariance,
+  type CountCorrection,
+  type CountLineInput,
+  type CountLineResult,
+  type CountThresholds,
+  type CountVariance,
+} from './counts/variance';
+export { validateMovement, type MovementContext, type MovementInput } from './validate';

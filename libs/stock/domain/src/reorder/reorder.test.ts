@@ -3,7 +3,7 @@ import { mean, probit, errorFunction, sampleStandardDeviation } from 'simple-sta
 import { describe, expect, it } from 'vitest';
 import { dailyDemandSeries, daysBetween, demandStats } from './demand';
 import { economicOrderQuantity, reorderPoint, safetyStock, serviceLevelZ } from './formulas';
-import { inverseNormalCdf } from './normal';
+import { inverseNormalCdf } from './formulas';
 import { reorderSuggestion, type ReorderProduct } from './suggestion';
 
 /** Φ(z) through simple-statistics' errorFunction (fractional error below 1.2e-7). */
