@@ -14,3 +14,15 @@ export * from './csv';
 export * from './pipeline';
 export * from './pipeline-csv';
 export * from './mentions';
+export {
+  CellError,
+  normaliseHeading,
+  type ColumnSpec,
+  type CsvRows,
+  type ImportResult,
+  type ParsedRecord,
+  type RowError,
+} from './import-fields';
+export * from './import-customers';
+export * from './import-sites';
+export * from './import-plan';
