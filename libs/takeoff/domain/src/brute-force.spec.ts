@@ -70,7 +70,8 @@ const SPIKE_MM = 1e-9;
 
 /**
  * The ring without its zero-width spikes: vertices where the ring turns straight back (out
- * along a line and back along it) leaving a strip thinner than {@link SPIKE_MM}.
+ * along a line and back along it) leaving a strip thinner than {@link SPIKE_MM}, and edges
+ * shorter than that (the flat tip of such a spike).
  *
  * Why the reference needs this: where an obstacle's offset edge falls on the inner outline's
  * edge (a column set exactly one gap off a wall, so both offset edges are the same line), the
@@ -95,7 +96,8 @@ export function withoutSpikes(closed: Ring): Ring {
       const wy = b[1] - v[1];
       const back = ux * wx + uy * wy < 0;
       const width = Math.abs(ux * wy - uy * wx) / Math.max(Math.hypot(ux, uy), Math.hypot(wx, wy));
-      if (back && !(width >= SPIKE_MM)) {
+      // A hair-long edge goes too: a spike's tip may be one (out, a hair across, back).
+      if (Math.hypot(ux, uy) < SPIKE_MM || (back && !(width >= SPIKE_MM))) {
         r.splice(i, 1);
         changed = true;
         i--;

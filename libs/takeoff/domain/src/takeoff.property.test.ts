@@ -190,4 +190,29 @@ describe('regressions found by the property tests', () => {
       suggestOrigin: false,
     });
   });
+
+  // fast-check seed 3 at numRuns 5000: a column's offset side on the wall's offset side, the
+  // reference's copy an ulp off, so its strip came back as a spike with a flat tip.
+  it('column offset side on the wall offset side', () => {
+    check({
+      outline: [
+        [0, 0],
+        [1500, 0],
+        [1500, 1500],
+        [0, 1500],
+      ],
+      obstacles: [
+        [
+          [40, 0],
+          [369, 0],
+          [369, 100],
+          [40, 100],
+        ],
+      ],
+      tile: { pitchMm: 250 },
+      gapMm: 20,
+      origin: { x: 0, y: 0 },
+      suggestOrigin: false,
+    });
+  });
 });
