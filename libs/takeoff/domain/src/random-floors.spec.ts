@@ -196,9 +196,11 @@ export function valid(outline: Ring, obstacles: Ring[], gap: number): boolean {
   if (!isSimple(o) || area(o) <= 0) return false;
   for (let k = 0; k < obstacles.length; k++) {
     const ob = obstacles[k];
-    // Inside the outline, with a millimetre to spare, and not overlapping another obstacle.
-    const inside = pc.difference([ob], [outline]);
-    if (mpArea(inside) > 1e-6) return false;
+    // Inside the outline, not a hair outside: the engine rightly refuses an obstacle whose
+    // corner pokes 2e-4 mm through a wall (seed 4 at 5,000 runs), whose outside part has
+    // almost no area.
+    const outside = pc.difference([ob], [outline]);
+    if (mpArea(outside) > 0) return false;
     // polygon-clipping can miss an overlap where vertices touch (a triangle inside a square
     // with two corners on its sides came back as no intersection): obstacles are convex, so
     // a separating axis test settles it.
