@@ -188,6 +188,39 @@ describe('validateTakeoffInput', () => {
     );
   });
 
+  it('rejects a floor narrower than twice the gap, where the gap would close up', () => {
+    // Found by the random point-soup test: the inward offset of a 1 mm² sliver of a floor
+    // turns inside out, and was tiled as 2.6 mm². Wider floors with short jogs still pass.
+    for (const outline of [
+      [
+        [0, 0],
+        [0, -1],
+        [-2, 0],
+      ],
+      [
+        [0, 1],
+        [0, 0],
+        [3, 3],
+        [-6, -7],
+      ],
+    ] as Point[][]) {
+      const problems = validateTakeoffInput({ outline, tile: { pitchMm: 500 }, gapMm: 1 });
+      expect(problems.map((p) => p.field)).toContain('gapMm');
+    }
+    const jog: Point[] = [
+      [0, 0],
+      [1350, 0],
+      [1350, 150],
+      [1500, 150],
+      [1500, 1350],
+      [1350, 1350],
+      [1350, 1500],
+      [1336.5, 1500],
+      [0, 1500],
+    ];
+    expect(validateTakeoffInput({ outline: jog, tile: { pitchMm: 250 }, gapMm: 20 })).toEqual([]);
+  });
+
   it('rejects pitch outside 100–1500 mm and gap outside 0–50 mm', () => {
     expect(problems({ ...base, tile: { pitchMm: 99 } })[0]).toMatchObject({
       field: 'tile.pitchMm',

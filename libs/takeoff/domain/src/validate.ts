@@ -4,6 +4,8 @@
  * geometry, the point where it happens.
  */
 import { pointInRing, pointSegmentDistance, signedArea } from './geometry/polygon';
+import { floorRule, regionArea } from './geometry/sweep';
+import { buildRegion } from './layout/region';
 import { DEFAULT_RATES } from './rates';
 import type { Point, TakeoffProblem } from './types';
 import { checkRing, findRingTouch } from './validate-ring';
@@ -68,6 +70,31 @@ function checkRange(
   if (!isNum(v)) out.push({ field, message: 'must be a number' });
   else if (v < min || v > max)
     out.push({ field, message: `must be between ${min} and ${max} ${unit} (got ${v})` });
+}
+
+/**
+ * A floor narrower than twice the expansion gap has no room to tile: the gap's inward
+ * offset turns inside out, and a folded offset would be counted as floor. The region the
+ * engine would tile can never be larger than the floor, so that is the test; it is refused
+ * with a clear message rather than tiled wrongly. (A local fold at a short jog in a wall is
+ * fine: the winding rule drops it, and the area stays below the floor's.)
+ */
+function gapClosesUp(outline: Point[], input: Record<string, unknown>): TakeoffProblem | null {
+  const rates = isObj(input['rates']) ? input['rates'] : {};
+  const gap = isNum(input['gapMm'])
+    ? input['gapMm']
+    : isNum(rates['gapMm'])
+      ? rates['gapMm']
+      : DEFAULT_RATES.gapMm;
+  if (!(gap > 0) || gap > LIMITS.maxGapMm) return null;
+  const region = buildRegion(outline, [], gap, 0);
+  const floorArea = Math.abs(signedArea(outline));
+  if (regionArea(region.edges, floorRule) <= floorArea * (1 + 1e-9)) return null;
+  return {
+    field: 'gapMm',
+    message: `the floor is narrower than twice the ${gap} mm gap, so the gap closes up; measure again or reduce the gap`,
+    point: outline[0],
+  };
 }
 
 /** All problems with the input; an empty list means computeTakeoff will accept it. */
@@ -154,6 +181,8 @@ export function validateTakeoffInput(input: unknown): TakeoffProblem[] {
         message: `floor area ${Math.round(areaM2)} m² is over the ${LIMITS.maxAreaM2} m² limit`,
       });
     }
+    const gapClosure = gapClosesUp(outline, input);
+    if (gapClosure) out.push(gapClosure);
   }
   const goodObstacles: { ring: Point[]; k: number }[] = [];
   obstacles.forEach((raw, k) => {
