@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { withTenant } from '@latchwork/shared-db';
+import { waitForMessagesTo } from '../support/stack';
 import { createTestApi } from './api-harness';
 import { demoIds, sessionFor, type TestSession } from './sessions';
 
@@ -14,19 +15,6 @@ let ownerId = '';
 let ids: Awaited<ReturnType<typeof demoIds>>;
 
 const as = (s: TestSession) => ({ Cookie: s.cookie, 'X-XSRF-TOKEN': s.csrfToken });
-
-async function inbox(to: string) {
-  for (let i = 0; i < 100; i++) {
-    const res = await fetch(
-      `${process.env['MAIL_UI_URL']}/api/messages?to=${encodeURIComponent(to)}`,
-    );
-    const body = await res.json();
-    const list = Array.isArray(body) ? body : body.messages;
-    if (list.length) return list as { subject: string; text: string }[];
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  return [];
-}
 
 beforeAll(async () => {
   ids = await demoIds(deps.db);
@@ -100,7 +88,7 @@ describe('members', () => {
       .send({ email, name: 'Nell Hazeldine', role: 'installer' })
       .expect(201);
     expect(res.body).toMatchObject({ email, role: 'installer', joinedAt: null });
-    const [mail] = await inbox(email);
+    const [mail] = await waitForMessagesTo(email);
     expect(mail?.subject).toBe('You are invited to Kestrel Floorworks Ltd on Latchwork');
     expect(mail?.text).toContain(`${process.env['IDP_ISSUER']}/set-password/`);
     await request(app)

@@ -1,12 +1,7 @@
 import { createHmac, randomBytes } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { Database } from '@latchwork/shared-db';
-
-const env = (name: string) => {
-  const value = process.env[name];
-  if (!value) throw new Error(`${name} is not set; run through npm test`);
-  return value;
-};
+import { stackEnv } from '../support/stack';
 
 export interface TestSession {
   sid: string;
@@ -45,7 +40,7 @@ export async function sessionFor(
     .insertInto('appSession')
     .values({ sid, sess: JSON.stringify(sess), expire })
     .execute();
-  const signature = createHmac('sha256', env('SESSION_SECRET'))
+  const signature = createHmac('sha256', stackEnv('SESSION_SECRET'))
     .update(sid)
     .digest('base64')
     .replace(/=+$/, '');

@@ -4,22 +4,10 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl, expectClean, guardedContext, launchChromium, shot } from './support/browser';
+import { waitForMessagesTo } from '../support/stack';
 import { expectedAnswers, expectedNav, signIn, signOut } from './support/sign-in';
 
-const MAIL_UI_URL = process.env['MAIL_UI_URL'] ?? 'http://127.0.0.1:13426';
 const IDP_ISSUER = process.env['IDP_ISSUER'] ?? 'http://127.0.0.1:13400';
-
-/** Waits for the mail fake to hold a message to `to`, and returns its text. */
-async function mailTo(to: string): Promise<string> {
-  for (let i = 0; i < 150; i++) {
-    const res = await fetch(`${MAIL_UI_URL}/api/messages?to=${encodeURIComponent(to)}`);
-    const body = await res.json();
-    const list = (Array.isArray(body) ? body : body.messages) as { text: string }[];
-    if (list.length) return list[0]?.text ?? '';
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no e-mail reached ${to}`);
-}
 
 describe('inviting a new member', () => {
   let browser: Browser;
@@ -54,7 +42,7 @@ describe('inviting a new member', () => {
       await page.getByRole('cell', { name: email }).waitFor();
       await signOut(page);
 
-      const text = await mailTo(email);
+      const text = (await waitForMessagesTo(email))[0]?.text ?? '';
       const link = new RegExp(
         `${IDP_ISSUER.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}/set-password/\\S+`,
       ).exec(text)?.[0];

@@ -10,18 +10,13 @@ import {
 } from '@latchwork/shared-queues';
 import { createLogger } from '@latchwork/shared-server-kit';
 import { startWorkers, stopWorkers } from '../../apps/worker/src/start-worker';
+import { messagesTo, stackEnv, waitForMessagesTo } from '../support/stack';
 
-const env = (name: string) => {
-  const value = process.env[name];
-  if (!value) throw new Error(`${name} is not set; run through npm test`);
-  return value;
-};
-
-const db = createDb({ connectionString: env('DATABASE_URL'), max: 3 });
-const connection = createRedisConnection(env('REDIS_URL'));
+const db = createDb({ connectionString: stackEnv('DATABASE_URL'), max: 3 });
+const connection = createRedisConnection(stackEnv('REDIS_URL'));
 const mailer = nodemailer.createTransport({
-  host: env('SMTP_HOST'),
-  port: Number(env('SMTP_PORT')),
+  host: stackEnv('SMTP_HOST'),
+  port: Number(stackEnv('SMTP_PORT')),
   ignoreTLS: true,
 });
 const logger = createLogger('worker-test', 'silent');
@@ -29,12 +24,6 @@ let queue: Queue<MailJob>;
 // Keys of our own: the stack's running worker must not take these tests' jobs.
 const PREFIX = `test-worker-${process.pid}`;
 let tenantId: string;
-
-async function inbox(to: string): Promise<{ subject: string; text: string; to: unknown }[]> {
-  const res = await fetch(`${env('MAIL_UI_URL')}/api/messages?to=${encodeURIComponent(to)}`);
-  const body = await res.json();
-  return Array.isArray(body) ? body : body.messages;
-}
 
 async function until<T>(probe: () => Promise<T | undefined>, timeoutMs = 15_000): Promise<T> {
   const deadline = Date.now() + timeoutMs;
@@ -57,7 +46,7 @@ const logRow = (id: string) =>
   );
 
 beforeAll(async () => {
-  queue = createMailQueue(createRedisConnection(env('REDIS_URL')), PREFIX);
+  queue = createMailQueue(createRedisConnection(stackEnv('REDIS_URL')), PREFIX);
   const tenant = await db
     .selectFrom('tenant')
     .select('id')
@@ -95,7 +84,7 @@ describe('the mail job', () => {
         },
       },
     );
-    const [message] = await until(async () => ((await inbox(to)).length ? inbox(to) : undefined));
+    const [message] = await waitForMessagesTo(to);
     expect(message?.subject).toBe('Survey booked');
     expect(message?.text).toContain('Tuesday at 9:00 <sharp>');
     const row = await until(async () => {
@@ -134,7 +123,7 @@ describe('the mail job', () => {
     await until(async () => ((await queue.getJob(id))?.processedOn ? true : undefined));
     await stopWorkers(workers);
     expect((await logRow(id)).status).toBe('sent');
-    expect(await inbox(to)).toHaveLength(1);
+    expect(await messagesTo(to)).toHaveLength(1);
   });
 
   it('retries a failing send with backoff and records the failure', async () => {

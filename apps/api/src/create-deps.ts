@@ -1,61 +1,53 @@
 import { Client as MinioClient } from 'minio';
-import nodemailer from 'nodemailer';
 import Stripe from 'stripe';
 import { createDb } from '@latchwork/shared-db';
-import { createMailQueue, createRedisConnection } from '@latchwork/shared-queues';
-import { createLogger } from '@latchwork/shared-server-kit';
+import {
+  createMailerFromEnv,
+  createMailQueue,
+  createRedisConnection,
+} from '@latchwork/shared-queues';
+import { createLogger, requiredEnv } from '@latchwork/shared-server-kit';
 import pg from 'pg';
 import { httpIdentityProviderAdmin, OidcClient } from '@latchwork/identity-server';
 import type { ApiDeps } from './deps';
-
-function required(name: string): string {
-  const value = process.env[name];
-  if (!value) throw new Error(`Environment variable ${name} is not set`);
-  return value;
-}
 
 /** Connects to every dependency from environment variables (see docker-free-dev/lib/config.mjs). */
 export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
   const logger = createLogger('api');
   const db = createDb({
-    connectionString: required('DATABASE_URL'),
+    connectionString: requiredEnv('DATABASE_URL'),
     applicationName: 'latchwork-api',
   });
-  const redis = createRedisConnection(required('REDIS_URL'));
+  const redis = createRedisConnection(requiredEnv('REDIS_URL'));
   const objectStore = {
     client: new MinioClient({
-      endPoint: required('S3_ENDPOINT'),
-      port: Number(required('S3_PORT')),
+      endPoint: requiredEnv('S3_ENDPOINT'),
+      port: Number(requiredEnv('S3_PORT')),
       useSSL: process.env['S3_USE_SSL'] === 'true',
-      accessKey: required('S3_ACCESS_KEY'),
-      secretKey: required('S3_SECRET_KEY'),
+      accessKey: requiredEnv('S3_ACCESS_KEY'),
+      secretKey: requiredEnv('S3_SECRET_KEY'),
       region: 'us-east-1',
     }),
-    bucket: required('S3_BUCKET'),
+    bucket: requiredEnv('S3_BUCKET'),
   };
-  const mailer = nodemailer.createTransport({
-    host: required('SMTP_HOST'),
-    port: Number(required('SMTP_PORT')),
-    secure: false,
-    ignoreTLS: process.env['SMTP_TLS'] !== 'true',
-  });
-  const payments = new Stripe(required('PAYMENTS_SECRET_KEY'), {
-    host: required('PAYMENTS_HOST'),
-    port: Number(required('PAYMENTS_PORT')),
+  const mailer = createMailerFromEnv();
+  const payments = new Stripe(requiredEnv('PAYMENTS_SECRET_KEY'), {
+    host: requiredEnv('PAYMENTS_HOST'),
+    port: Number(requiredEnv('PAYMENTS_PORT')),
     protocol: (process.env['PAYMENTS_PROTOCOL'] as 'http' | 'https' | undefined) ?? 'http',
     maxNetworkRetries: 1,
   });
-  const mailQueue = createMailQueue(createRedisConnection(required('REDIS_URL')));
+  const mailQueue = createMailQueue(createRedisConnection(requiredEnv('REDIS_URL')));
   const sessionPool = new pg.Pool({
-    connectionString: required('DATABASE_URL'),
+    connectionString: requiredEnv('DATABASE_URL'),
     max: 4,
     application_name: 'latchwork-api-sessions',
   });
-  const appUrl = required('APP_URL');
+  const appUrl = requiredEnv('APP_URL');
   const oidc = new OidcClient({
-    issuer: required('IDP_ISSUER'),
-    clientId: required('IDP_CLIENT_ID'),
-    clientSecret: required('IDP_CLIENT_SECRET'),
+    issuer: requiredEnv('IDP_ISSUER'),
+    clientId: requiredEnv('IDP_CLIENT_ID'),
+    clientSecret: requiredEnv('IDP_CLIENT_SECRET'),
     callbackUrl: `${appUrl}/api/v1/auth/callback`,
   });
   return {
@@ -68,12 +60,12 @@ export function createDepsFromEnv(): ApiDeps & { close(): Promise<void> } {
     logger,
     sessionPool,
     oidc,
-    idpAdmin: httpIdentityProviderAdmin(required('IDP_ISSUER'), required('IDP_ADMIN_TOKEN')),
+    idpAdmin: httpIdentityProviderAdmin(requiredEnv('IDP_ISSUER'), requiredEnv('IDP_ADMIN_TOKEN')),
     config: {
       appUrl,
       version: process.env['LW_VERSION'] ?? '0.1.0',
-      sessionSecret: required('SESSION_SECRET'),
-      providerEventSecret: required('IDP_EVENT_SECRET'),
+      sessionSecret: requiredEnv('SESSION_SECRET'),
+      providerEventSecret: requiredEnv('IDP_EVENT_SECRET'),
     },
     async close() {
       await mailQueue.close();

@@ -1,28 +1,16 @@
-import nodemailer from 'nodemailer';
 import { createDb } from '@latchwork/shared-db';
-import { createRedisConnection } from '@latchwork/shared-queues';
-import { createLogger } from '@latchwork/shared-server-kit';
+import { createMailerFromEnv, createRedisConnection } from '@latchwork/shared-queues';
+import { createLogger, requiredEnv } from '@latchwork/shared-server-kit';
 import { startWorkers, stopWorkers } from './start-worker';
-
-function required(name: string): string {
-  const value = process.env[name];
-  if (!value) throw new Error(`Environment variable ${name} is not set`);
-  return value;
-}
 
 const logger = createLogger('worker');
 const db = createDb({
-  connectionString: required('DATABASE_URL'),
+  connectionString: requiredEnv('DATABASE_URL'),
   applicationName: 'latchwork-worker',
   max: 5,
 });
-const connection = createRedisConnection(required('REDIS_URL'));
-const mailer = nodemailer.createTransport({
-  host: required('SMTP_HOST'),
-  port: Number(required('SMTP_PORT')),
-  secure: false,
-  ignoreTLS: process.env['SMTP_TLS'] !== 'true',
-});
+const connection = createRedisConnection(requiredEnv('REDIS_URL'));
+const mailer = createMailerFromEnv();
 const workers = startWorkers(
   connection,
   { db, mailer, from: process.env['MAIL_FROM'] ?? 'Latchwork <no-reply@latchwork.test>' },

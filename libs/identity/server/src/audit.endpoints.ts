@@ -1,9 +1,7 @@
 import { z } from 'zod';
-import { withTenant } from '@latchwork/shared-db';
-import { endpoint } from '@latchwork/shared-server-kit';
-import { listAudit } from '@latchwork/shared-db';
+import { withTenant, listAudit } from '@latchwork/shared-db';
+import { endpoint, scopeOf } from '@latchwork/shared-server-kit';
 import type { IdentityDeps } from './identity-deps';
-import { scopeOf } from '@latchwork/shared-server-kit';
 
 export function auditEndpoints(deps: IdentityDeps) {
   return [

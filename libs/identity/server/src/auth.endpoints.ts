@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import type { Request } from 'express';
-import { endpoint } from '@latchwork/shared-server-kit';
+import { endpoint, actorOf } from '@latchwork/shared-server-kit';
 import { issueCsrfToken } from './csrf';
 import { recordAuditInTenants } from '@latchwork/shared-db';
 import { findUserByEmail, markJoined, membershipsOfUser } from './identity.repository';
 import type { IdentityDeps } from './identity-deps';
 import { SESSION_COOKIE } from './session';
-import { actorOf } from '@latchwork/shared-server-kit';
 
 /** Only same-site paths: an open redirect would let a link send people to another site after sign-in. */
 const safeReturnTo = z

@@ -1,10 +1,9 @@
 import { z } from 'zod';
 import type { Request, Response } from 'express';
-import { endpoint, NotFoundError } from '@latchwork/shared-server-kit';
+import { endpoint, NotFoundError, actorOf } from '@latchwork/shared-server-kit';
 import { issueCsrfToken } from './csrf';
 import { loadActor, membershipsOfUser } from './identity.repository';
 import type { IdentityDeps } from './identity-deps';
-import { actorOf } from '@latchwork/shared-server-kit';
 
 const meResponse = z.object({
   user: z.object({ id: z.string(), email: z.string(), name: z.string() }),

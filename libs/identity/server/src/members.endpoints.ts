@@ -1,11 +1,21 @@
 import { z } from 'zod';
-import { withTenant, type TenantScope } from '@latchwork/shared-db';
-import { ConflictError, endpoint, NotFoundError } from '@latchwork/shared-server-kit';
+import {
+  withTenant,
+  type Role,
+  type TenantScope,
+  type Tx,
+  recordAudit,
+} from '@latchwork/shared-db';
+import {
+  ConflictError,
+  endpoint,
+  NotFoundError,
+  actorOf,
+  scopeOf,
+} from '@latchwork/shared-server-kit';
 import { enqueueMail } from '@latchwork/shared-queues';
 import { ROLES } from '@latchwork/shared-access';
-import { recordAudit } from '@latchwork/shared-db';
 import type { IdentityDeps } from './identity-deps';
-import { actorOf, scopeOf } from '@latchwork/shared-server-kit';
 import {
   addMembership,
   deleteMembership,
@@ -28,6 +38,26 @@ const member = z.object({
   joinedAt: z.date().nullable(),
 });
 const userIdParams = z.object({ userId: z.uuid() });
+
+/**
+ * The member about to change role (`newRole`) or leave (`null`), refusing when that would
+ * leave the firm without an owner. Owner rows are locked first, so two owners demoting each
+ * other at the same moment cannot both succeed.
+ */
+async function memberKeepingAnOwner(
+  tx: Tx,
+  scope: TenantScope,
+  userId: string,
+  newRole: Role | null,
+) {
+  const owners = await lockOwners(tx, scope);
+  const found = await findMember(tx, scope, userId);
+  if (!found) throw new NotFoundError('That member');
+  if (found.role === 'owner' && newRole !== 'owner' && owners.length <= 1) {
+    throw new ConflictError('A firm needs at least one owner: make someone else an owner first.');
+  }
+  return found;
+}
 
 export function memberEndpoints(deps: IdentityDeps) {
   async function sendInvitation(scope: TenantScope, person: { email: string; name: string }) {
@@ -127,14 +157,7 @@ export function memberEndpoints(deps: IdentityDeps) {
       async handle({ params, body, req }) {
         const scope = scopeOf(req);
         return withTenant(deps.db, scope, async (tx) => {
-          const owners = await lockOwners(tx, scope);
-          const found = await findMember(tx, scope, params.userId);
-          if (!found) throw new NotFoundError('That member');
-          if (found.role === 'owner' && body.role !== 'owner' && owners.length <= 1) {
-            throw new ConflictError(
-              'A firm needs at least one owner: make someone else an owner first.',
-            );
-          }
+          const found = await memberKeepingAnOwner(tx, scope, params.userId, body.role);
           await setRole(tx, scope, params.userId, body.role);
           await recordAudit(tx, scope, {
             userId: actorOf(req).userId,
@@ -158,13 +181,7 @@ export function memberEndpoints(deps: IdentityDeps) {
       async handle({ params, req, res }) {
         const scope = scopeOf(req);
         await withTenant(deps.db, scope, async (tx) => {
-          const owners = await lockOwners(tx, scope);
-          const found = await findMember(tx, scope, params.userId);
-          if (!found) throw new NotFoundError('That member');
-          if (found.role === 'owner' && owners.length <= 1)
-            throw new ConflictError(
-              'A firm needs at least one owner: make someone else an owner first.',
-            );
+          const found = await memberKeepingAnOwner(tx, scope, params.userId, null);
           await deleteMembership(tx, scope, params.userId);
           await recordAudit(tx, scope, {
             userId: actorOf(req).userId,

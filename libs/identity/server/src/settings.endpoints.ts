@@ -1,9 +1,7 @@
 import { z } from 'zod';
-import { withTenant } from '@latchwork/shared-db';
-import { endpoint } from '@latchwork/shared-server-kit';
-import { recordAudit } from '@latchwork/shared-db';
+import { withTenant, recordAudit } from '@latchwork/shared-db';
+import { endpoint, actorOf, scopeOf } from '@latchwork/shared-server-kit';
 import type { IdentityDeps } from './identity-deps';
-import { actorOf, scopeOf } from '@latchwork/shared-server-kit';
 
 const prefix = z
   .string()

@@ -1,3 +1,4 @@
 export * from './connection';
 export * from './mail-queue';
 export * from './mail-templates';
+export * from './mailer';

@@ -4,3 +4,4 @@ export * from './endpoint';
 export * from './openapi';
 export * from './logger';
 export * from './request-context';
+export * from './env';
