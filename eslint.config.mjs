@@ -46,8 +46,15 @@ function boundaries({ tests }) {
           sourceTag: 'scope:identity',
           onlyDependOnLibsWithTags: ['scope:identity', 'scope:shared'],
         },
-        { sourceTag: 'scope:stock', onlyDependOnLibsWithTags: ['scope:stock', 'scope:shared'] },
-        { sourceTag: 'scope:jobs', onlyDependOnLibsWithTags: ['scope:jobs', 'scope:shared'] },
+        // Stock reserves and issues for jobs and estimates from their takeoffs; jobs save takeoffs.
+        {
+          sourceTag: 'scope:stock',
+          onlyDependOnLibsWithTags: ['scope:stock', 'scope:jobs', 'scope:takeoff', 'scope:shared'],
+        },
+        {
+          sourceTag: 'scope:jobs',
+          onlyDependOnLibsWithTags: ['scope:jobs', 'scope:takeoff', 'scope:shared'],
+        },
         // type: layers depend downwards only
         {
           sourceTag: 'type:app',

@@ -7,6 +7,7 @@ import { routeAccess } from '../../apps/api/src/app';
 import { signProviderEvent } from '@latchwork/identity-server';
 import { createTestApi } from './api-harness';
 import { demoIds, sessionFor } from './sessions';
+import { FEATURE_WALKS } from './walker';
 
 const { app, deps } = createTestApi();
 afterAll(() => deps.close());
@@ -47,7 +48,7 @@ function routesOf(express: Express): Route[] {
 }
 
 /** A valid body for each state-changing route, so a refusal cannot hide behind a 400. */
-const SAMPLE_BODIES: Record<string, (firm: string) => object> = {
+const SAMPLE_BODIES: Record<string, (firm: string, params: Record<string, string>) => object> = {
   'POST /api/v1/auth/logout': () => ({}),
   'POST /api/v1/auth/provider-events': () => ({
     type: 'sign-in-failed',
@@ -76,9 +77,12 @@ const SAMPLE_BODIES: Record<string, (firm: string) => object> = {
   'DELETE /api/v1/members/:userId': () => ({}),
   // A firm's own settings, unchanged: the walk must not rename anybody's firm.
   'PUT /api/v1/settings': (firm) => settingsOf.get(firm) ?? {},
+  ...Object.assign({}, ...FEATURE_WALKS.map((w) => w.bodies)),
 };
 
 const ids = { tenantA: '', tenantB: '', targetUser: '' };
+/** Route parameter values by name: the target member and each feature's objects in firm A. */
+const params: Record<string, string> = {};
 const settingsOf = new Map<string, object>();
 let actorsA: { role: Role; userId: string }[];
 let ownerB: string;
@@ -107,6 +111,7 @@ beforeAll(async () => {
     .returning('id')
     .executeTakeFirstOrThrow();
   ids.targetUser = target.id;
+  params['userId'] = target.id;
   await withTenant(deps.db, { tenantId: ids.tenantA }, (tx) =>
     tx
       .insertInto('membership')
@@ -119,6 +124,11 @@ beforeAll(async () => {
       })
       .execute(),
   );
+  for (const walk of FEATURE_WALKS)
+    Object.assign(
+      params,
+      await walk.prepare({ db: deps.db, tenantA: ids.tenantA, ownerA: ownerA() }),
+    );
   for (const [firm, owner] of [
     [ids.tenantA, ownerA()],
     [ids.tenantB, ownerB],
@@ -132,7 +142,11 @@ beforeAll(async () => {
 });
 
 async function call(route: Route, as?: { userId: string; tenantId: string }) {
-  const path = route.path.replace(':userId', ids.targetUser);
+  const path = route.path.replace(/:(\w+)/g, (_, name: string) => {
+    const value = params[name];
+    if (!value) throw new Error(`${route.method} ${route.path}: no walker value for :${name}`);
+    return value;
+  });
   const key = `${route.method} ${route.path}`;
   let req = request(app)[route.method.toLowerCase() as 'get'](path).redirects(0);
   if (as) {
@@ -140,7 +154,7 @@ async function call(route: Route, as?: { userId: string; tenantId: string }) {
     req = req.set('Cookie', session.cookie).set('X-XSRF-TOKEN', session.csrfToken);
   }
   if (route.method !== 'GET') {
-    const body = JSON.stringify(SAMPLE_BODIES[key]?.(as?.tenantId ?? ids.tenantA) ?? {});
+    const body = JSON.stringify(SAMPLE_BODIES[key]?.(as?.tenantId ?? ids.tenantA, params) ?? {});
     req = req.set('Content-Type', 'application/json');
     // The identity provider's event stream is public but signed; sign it as the provider would.
     if (key === 'POST /api/v1/auth/provider-events')

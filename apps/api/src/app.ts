@@ -23,6 +23,8 @@ import {
   type IdentityDeps,
 } from '@latchwork/identity-server';
 import { takeoffEndpoints } from '@latchwork/takeoff-server';
+import { jobsEndpoints } from '@latchwork/jobs-server';
+import { stockEndpoints } from '@latchwork/stock-server';
 import type { ApiDeps } from './deps';
 import { healthEndpoints } from './health/health.endpoints';
 import { DOCS_ROUTES, docsRouter } from './docs/docs.router';
@@ -50,6 +52,13 @@ export function apiEndpoints(deps: ApiDeps): EndpointDef[] {
     ...settingsEndpoints(identity),
     ...auditEndpoints(identity),
     ...takeoffEndpoints({ db: deps.db }),
+    ...jobsEndpoints({
+      db: deps.db,
+      mailQueue: deps.mailQueue,
+      objectStore: deps.objectStore,
+      appUrl: deps.config.appUrl,
+    }),
+    ...stockEndpoints({ db: deps.db, mailQueue: deps.mailQueue, appUrl: deps.config.appUrl }),
   ];
   const document = () =>
     buildOpenApiDocument(endpoints, {

@@ -16,7 +16,10 @@ describe('app route table', () => {
   it('derives the navigation from the routes that carry nav data, in table order', () => {
     expect(navItemsFrom(routes).map((item) => [item.link, item.label, item.access])).toEqual([
       ['/', 'Home', 'public'],
+      ['/jobs', 'Jobs', 'jobs:read'],
+      ['/customers', 'Customers', 'customers:read'],
       ['/takeoff', 'Takeoff', 'takeoffs:read'],
+      ['/stock', 'Stock', 'stock:read'],
       ['/team', 'Team', 'members:read'],
       ['/settings', 'Firm settings', 'settings:write'],
       ['/audit', 'Audit log', 'audit:read'],

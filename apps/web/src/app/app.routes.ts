@@ -25,6 +25,26 @@ export const routes: Routes = [
     loadComponent: () => import('./pages/landing-page/landing-page').then((m) => m.LandingPage),
   },
   {
+    path: 'jobs',
+    title: 'Jobs · Latchwork',
+    canActivate: [accessGuard],
+    data: navData('Jobs', 'view_kanban', {
+      permission: 'jobs:read',
+      hint: 'Every job from enquiry to payment, as a board or a table, with its survey and files.',
+    }),
+    loadChildren: () => import('./jobs/jobs.routes').then((m) => m.JOB_ROUTES),
+  },
+  {
+    path: 'customers',
+    title: 'Customers · Latchwork',
+    canActivate: [accessGuard],
+    data: navData('Customers', 'contacts', {
+      permission: 'customers:read',
+      hint: 'Customers, their contacts and sites, and their jobs; import them from a spreadsheet.',
+    }),
+    loadChildren: () => import('./customers/customers.routes').then((m) => m.CUSTOMER_ROUTES),
+  },
+  {
     path: 'takeoff',
     title: 'Takeoff · Latchwork',
     canActivate: [accessGuard],
@@ -33,6 +53,16 @@ export const routes: Routes = [
       hint: 'Measure a floor and see its tile layout, cuts, materials and hours.',
     }),
     loadComponent: () => import('./takeoff/takeoff-page').then((m) => m.TakeoffPage),
+  },
+  {
+    path: 'stock',
+    title: 'Stock · Latchwork',
+    canActivate: [accessGuard],
+    data: navData('Stock', 'inventory_2', {
+      permission: 'stock:read',
+      hint: 'Tiles, adhesives and trims: what is where, what is promised, counts and orders.',
+    }),
+    loadChildren: () => import('./stock/stock.routes').then((m) => m.STOCK_ROUTES),
   },
   {
     path: 'team',

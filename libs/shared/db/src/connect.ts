@@ -4,6 +4,8 @@ import type { Database } from './database';
 
 // Return int8/numeric as strings (never JS floats); counts are converted where read.
 pg.types.setTypeParser(pg.types.builtins.INT8, (v) => v);
+// A calendar date stays 'YYYY-MM-DD': as a JS Date it would shift with the server's time zone.
+pg.types.setTypeParser(pg.types.builtins.DATE, (v) => v);
 
 export interface DbOptions {
   connectionString: string;

@@ -1,10 +1,9 @@
 import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
-
-/** A timestamp column: read as Date, written as Date or ISO string, defaulted by the database. */
-type CreatedAt = ColumnType<Date, Date | string | undefined, never>;
-type Timestamp = ColumnType<Date, Date | string, Date | string>;
-/** A column the database fills with its default when an insert leaves it out. */
-type Defaulted<T> = ColumnType<T, T | undefined, T>;
+import type { CreatedAt, Defaulted, Timestamp } from './tables/column-types';
+import type { CustomersTables } from './tables/customers-tables';
+import type { JobsTables } from './tables/jobs-tables';
+import type { SurveyTables } from './tables/survey-tables';
+import type { StockTables } from './tables/stock-tables';
 
 /** The role column's values; the database's check constraint and @latchwork/shared-access's ROLES agree. */
 export type Role = 'owner' | 'estimator' | 'stores' | 'bookkeeper' | 'installer';
@@ -15,9 +14,10 @@ export type EmailStatus = 'queued' | 'sent' | 'failed';
 /**
  * The whole schema as Kysely sees it (camelCase; the CamelCasePlugin maps to snake_case).
  * Global tables: tenant, appUser. Every other table carries tenantId and is guarded by
- * row-level security on `app.tenant_id` (see migrations).
+ * row-level security on `app.tenant_id` (see migrations). Each feature's tables are declared in
+ * its own file under ./tables.
  */
-export interface Database {
+export interface Database extends CustomersTables, JobsTables, SurveyTables, StockTables {
   tenant: {
     id: Generated<string>;
     slug: string;

@@ -3,3 +3,6 @@ export * from './connect';
 export * from './tenant-scope';
 export * from './migrate';
 export * from './audit';
+export type * from './tables/column-types';
+export type { CustomerKind } from './tables/customers-tables';
+export type { JobStage } from './tables/jobs-tables';

@@ -14,6 +14,9 @@ export async function migrateToLatest(db: AnyDb, folder: string): Promise<Migrat
   const migrator = new Migrator({
     db,
     provider: new FileMigrationProvider({ fs, path, migrationFolder: path.resolve(folder) }),
+    // Features land in parallel, so a file may arrive named before one already applied on a
+    // developer's database; each file still runs once, and a fresh database runs them in order.
+    allowUnorderedMigrations: true,
   });
   return migrator.migrateToLatest();
 }

@@ -1,0 +1,4 @@
+import type { DemoStep } from './demo-context';
+
+// Filled as the feature lands.
+export const jobsDemo: DemoStep = async () => '';

@@ -1,0 +1,7 @@
+import type { EndpointDef } from '@latchwork/shared-server-kit';
+import type { JobsDeps } from '../jobs-deps';
+
+// Under construction in this session: the endpoints land here.
+export function jobEndpoints(_deps: JobsDeps): EndpointDef[] {
+  return [];
+}

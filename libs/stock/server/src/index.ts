@@ -1,0 +1,9 @@
+import type { EndpointDef } from '@latchwork/shared-server-kit';
+import type { StockDeps } from './stock-deps';
+
+export type { StockDeps } from './stock-deps';
+
+/** Catalogue, locations and batches, the stock ledger, reservations, counts and purchasing. */
+export function stockEndpoints(_deps: StockDeps): EndpointDef[] {
+  return [];
+}
