@@ -1,4 +1,4 @@
-import type { Generated } from 'kysely';
+import type { ColumnType, Generated } from 'kysely';
 import type { CreatedAt, DateOnly, Defaulted, MinorUnits, Timestamp } from './column-types';
 
 /** Stage ids as stored; @latchwork/jobs-domain's STAGES and the check constraint agree. */
@@ -17,7 +17,10 @@ export type JobStage =
   | 'on_hold'
   | 'cancelled';
 
-/** Jobs, the per-firm reference counter and the stage history (migration 2026_12_02_0100). */
+/**
+ * Jobs, the per-firm reference counter and the stage history (migration 2026_12_02_0100);
+ * the timeline, notes and crew (2026_12_02_0120).
+ */
 export interface JobsTables {
   jobCounter: {
     tenantId: string;
@@ -58,5 +61,33 @@ export interface JobsTables {
     rule: string | null;
     movedBy: string | null;
     movedAt: Defaulted<Timestamp>;
+  };
+  /** One line of a job's timeline; append-only. `kind` e.g. `stage-move`, `note`, `file-uploaded`. */
+  jobEvent: {
+    id: Generated<string>;
+    tenantId: string;
+    jobId: string;
+    kind: string;
+    summary: string;
+    detail: ColumnType<Record<string, unknown>, Record<string, unknown> | undefined, never>;
+    actorUserId: string | null;
+    createdAt: CreatedAt;
+  };
+  jobNote: {
+    id: Generated<string>;
+    tenantId: string;
+    jobId: string;
+    authorUserId: string | null;
+    body: string;
+    /** User ids of the members the note mentions. */
+    mentions: ColumnType<string[], string[] | undefined, never>;
+    createdAt: CreatedAt;
+  };
+  /** Who is booked on a job; an installer sees only these jobs. */
+  jobCrew: {
+    tenantId: string;
+    jobId: string;
+    userId: string;
+    createdAt: CreatedAt;
   };
 }
