@@ -1,0 +1,130 @@
+import { z } from 'zod';
+
+/**
+ * Request and response shapes of the customer and site routes. Money is integer minor units
+ * of the firm's currency (pence for GBP, cents for EUR; ISO 4217 minor digits), sent and
+ * returned as a JSON integer in fields ending `Minor` — never a decimal number.
+ */
+
+const trimmed = (max: number) => z.string().trim().max(max);
+/** Optional text that may be cleared: empty text is stored as null. */
+const optionalText = (max: number) =>
+  trimmed(max)
+    .nullish()
+    .transform((v) => (v ? v : null));
+const addressLines = z.array(trimmed(200)).max(6, 'at most 6 address lines');
+
+export const customerKind = z.enum(['business', 'homeowner']);
+export const customerIdParams = z.object({ customerId: z.uuid() });
+export const siteIdParams = z.object({ siteId: z.uuid() });
+
+export const listQuery = z.object({
+  q: trimmed(100).optional(),
+  sort: z.enum(['name', 'createdAt', 'postcode']).default('name'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+});
+export type ListQuery = z.output<typeof listQuery>;
+
+export const customerListItem = z.object({
+  id: z.string(),
+  kind: customerKind,
+  name: z.string(),
+  email: z.string().nullable(),
+  phone: z.string().nullable(),
+  postcode: z.string().nullable(),
+  externalRef: z.string().nullable(),
+  siteCount: z.number().int(),
+  /** Jobs not lost, paid or cancelled. */
+  openJobCount: z.number().int(),
+});
+export const customerList = z.object({ items: z.array(customerListItem), total: z.number() });
+
+export const siteSummary = z.object({
+  id: z.string(),
+  name: z.string(),
+  addressLines: z.array(z.string()),
+  postcode: z.string().nullable(),
+});
+
+export const contactInput = z.object({
+  name: trimmed(200).min(1, 'a contact needs a name'),
+  role: trimmed(100).default(''),
+  email: z.email().max(254).toLowerCase().nullish(),
+  phone: optionalText(40),
+});
+
+export const customerInput = z.object({
+  kind: customerKind,
+  name: trimmed(200).min(1, 'a customer needs a name'),
+  externalRef: optionalText(60),
+  email: z.email().max(254).toLowerCase().nullish(),
+  phone: optionalText(40),
+  billingAddressLines: addressLines.default([]),
+  postcode: optionalText(16).transform((v) => v?.toUpperCase().replace(/\s+/g, ' ') ?? null),
+  /** Overrides the firm's payment terms; null uses the firm's. */
+  paymentTermsDays: z.number().int().min(0).max(365).nullish(),
+  /** Integer minor units of the firm's currency, e.g. 250000 for £2,500.00. */
+  creditLimitMinor: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER).nullish(),
+  notes: trimmed(4000).default(''),
+  contacts: z.array(contactInput).max(20, 'at most 20 contacts').default([]),
+});
+export type CustomerInput = z.output<typeof customerInput>;
+
+export const siteInput = z.object({
+  name: trimmed(200).default(''),
+  externalRef: optionalText(60),
+  addressLines: addressLines.min(1, 'a site needs at least its first address line'),
+  postcode: optionalText(16).transform((v) => v?.toUpperCase().replace(/\s+/g, ' ') ?? null),
+  accessNotes: trimmed(2000).default(''),
+  parking: trimmed(500).default(''),
+  floorType: trimmed(100).default(''),
+  openingHours: trimmed(200).default(''),
+});
+export type SiteInput = z.output<typeof siteInput>;
+
+export const site = siteSummary.extend({
+  customerId: z.string(),
+  externalRef: z.string().nullable(),
+  accessNotes: z.string(),
+  parking: z.string(),
+  floorType: z.string(),
+  openingHours: z.string(),
+});
+
+export const contact = z.object({
+  id: z.string(),
+  name: z.string(),
+  role: z.string(),
+  email: z.string().nullable(),
+  phone: z.string().nullable(),
+});
+
+export const jobSummary = z.object({
+  id: z.string(),
+  reference: z.string(),
+  title: z.string(),
+  stage: z.string(),
+  valueEstimateMinor: z.number().int().nullable(),
+  stageChangedAt: z.date(),
+});
+
+export const customerDetail = customerListItem
+  .omit({ siteCount: true, openJobCount: true })
+  .extend({
+    billingAddressLines: z.array(z.string()),
+    paymentTermsDays: z.number().int().nullable(),
+    creditLimitMinor: z.number().int().nullable(),
+    notes: z.string(),
+    createdAt: z.date(),
+    updatedAt: z.date(),
+    contacts: z.array(contact),
+    sites: z.array(site),
+    jobs: z.array(jobSummary),
+    /** What the customer owes; filled by the invoicing issue, null until then. */
+    balance: z.null(),
+    /** The firm's currency and its minor digits, to show the money fields. */
+    currency: z.string(),
+    minorDigits: z.number().int(),
+  });
