@@ -67,6 +67,20 @@ export const MAIL_TEMPLATES = {
       html: layout(subject, lines, { label: 'Sign in', url }),
     };
   },
+  /** A team member named a colleague with @ in a job's note. */
+  mention(params: Record<string, string>): RenderedMail {
+    const author = required(params, 'author');
+    const job = required(params, 'job');
+    const excerpt = required(params, 'excerpt');
+    const url = required(params, 'url');
+    const subject = `${author} mentioned you on ${job}`;
+    const lines = [`${author} mentioned you in a note on job ${job}:`, excerpt];
+    return {
+      subject,
+      text: `${lines.join('\n\n')}\n\nOpen the job: ${url}\n`,
+      html: layout(subject, lines, { label: 'Open the job', url }),
+    };
+  },
 } satisfies Record<string, (params: Record<string, string>) => RenderedMail>;
 
 export type MailTemplateName = keyof typeof MAIL_TEMPLATES;
