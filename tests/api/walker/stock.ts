@@ -1,4 +1,41 @@
+import { sql, type Kysely } from 'kysely';
+import { withTenant, type Database } from '@latchwork/shared-db';
 import type { WalkerFixture } from './fixture';
+
+const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+
+/**
+ * A customer and a job in the firm, written straight to the tables (the stock tests must not
+ * depend on the jobs API's form); the number comes from the firm's counter like any job's.
+ */
+export async function makeStockJob(db: Kysely<Database>, tenantId: string): Promise<string> {
+  return withTenant(db, { tenantId }, async (tx) => {
+    const customer = await tx
+      .insertInto('customer')
+      .values({ tenantId, kind: 'business', name: `Stock test customer ${unique()}` })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const { rows } = await sql<{ n: number }>`
+      insert into job_counter (tenant_id, last_number) values (${tenantId}, 1)
+      on conflict (tenant_id) do update set last_number = job_counter.last_number + 1
+      returning last_number as n`.execute(tx);
+    const job = await tx
+      .insertInto('job')
+      .values({
+        tenantId,
+        number: rows[0].n,
+        reference: `J-${rows[0].n}`,
+        title: `Stock test job ${unique()}`,
+        customerId: customer.id,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    return job.id;
+  });
+}
+
+/** Unique names for objects the stock tests create. */
+export const stockTestName = (prefix: string) => `${prefix}-${unique()}`;
 
 // Filled as the routes land.
 export const stockWalk: WalkerFixture = {

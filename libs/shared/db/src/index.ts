@@ -6,3 +6,12 @@ export * from './audit';
 export type * from './tables/column-types';
 export type { CustomerKind } from './tables/customers-tables';
 export type { JobStage } from './tables/jobs-tables';
+export type {
+  KitComponent,
+  ProductKind,
+  ReservationStatus,
+  StockLocationKind,
+  StockMovementKind,
+  SupplierContact,
+  WriteOffReason,
+} from './tables/stock-tables';

@@ -3,7 +3,7 @@
  * reorder, batch choice and picking, count variances, input checks. Pure TypeScript with no
  * imports: runs in Node and in the browser.
  */
-export { divRound, mulDivRound, MONEY_ROUNDING, type RoundingMode } from './rounding';
+export { divRound, mulDivRound, MONEY_ROUNDING, scaleOf, type RoundingMode } from './rounding';
 export {
   extendCost,
   formatDecimal,

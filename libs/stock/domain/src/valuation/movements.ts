@@ -23,11 +23,15 @@ export type MovementKind =
  * - return: back from a job at `unitCost` if given (the cost it left at), else the average.
  * - adjustment, count-correction: + at `unitCost` if given else the average; − like an issue.
  * - transfer: between locations of the same firm; changes neither quantity nor cost.
+ * - `value` (any kind): the exact value to book instead, for a reversing movement that must
+ *   undo exactly what the original booked. An outflow's value is capped at the stock's value,
+ *   and the outflow that empties the stock still takes all that is left.
  */
-export type ValuationMovement =
+export type ValuationMovement = (
   | { kind: 'receipt'; quantity: number; unitCost: Minor }
   | { kind: 'issue' | 'write-off' | 'transfer'; quantity: number }
-  | { kind: 'return' | 'adjustment' | 'count-correction'; quantity: number; unitCost?: Minor };
+  | { kind: 'return' | 'adjustment' | 'count-correction'; quantity: number; unitCost?: Minor }
+) & { value?: Minor };
 
 /** Options shared by the valuation methods. */
 export interface ValuationOptions {

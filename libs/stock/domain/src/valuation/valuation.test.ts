@@ -241,3 +241,45 @@ describe('property: the value never drifts', () => {
     );
   });
 });
+
+describe('reversals book an exact value', () => {
+  it('reversing an issue puts back exactly what left, so the average returns (arithmetic)', () => {
+    // 10 at 40.00 + 10 at 46.00, issue 12 = 516.00; reversing it brings 12 back worth 516.00:
+    // 20 units worth 860.00, average 43.00 again.
+    const r = weightedAverageCost([
+      receive(10, 4000),
+      receive(10, 4600),
+      issue(12),
+      { kind: 'return', quantity: 12, value: 51600 },
+    ]);
+    expect(r.quantity).toBe(20);
+    expect(r.value).toBe(86000);
+    expect(r.averageUnitCost).toBe(4300);
+  });
+
+  it('reversing a receipt takes out its own cost, not the average (arithmetic)', () => {
+    // 10 at 40.00 + 10 at 46.00 (wrongly booked): taking the 46.00 receipt out at its own
+    // 460.00 leaves 10 at 40.00 — at the average it would leave 430.00.
+    const r = weightedAverageCost([
+      receive(10, 4000),
+      receive(10, 4600),
+      { kind: 'adjustment', quantity: -10, value: 46000 },
+    ]);
+    expect(r.value).toBe(40000);
+    expect(r.averageUnitCost).toBe(4000);
+  });
+
+  it('an exact outflow value is capped at the stock value and emptying takes all', () => {
+    const capped = weightedAverageCost([
+      receive(10, 4000),
+      { kind: 'adjustment', quantity: -5, value: 99999 },
+    ]);
+    expect(capped.lines[1].value).toBe(-40000);
+    const emptied = weightedAverageCost([
+      receive(10, 4000),
+      { kind: 'issue', quantity: 10, value: 1 },
+    ]);
+    expect(emptied.lines[1].value).toBe(-40000);
+    expect(emptied.value).toBe(0);
+  });
+});

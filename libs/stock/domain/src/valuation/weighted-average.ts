@@ -54,15 +54,29 @@ function currentUnitCost(state: AverageCostState, decimals: number, field: strin
   return cost;
 }
 
-/** Costs an outflow of q > 0; allows going below zero only when told to. */
-function outflow(s: AverageCostState, q: number, o: Required<ValuationOptions>, field: string) {
+/**
+ * Costs an outflow of q > 0; allows going below zero only when told to. `exact` (a reversal's
+ * value) replaces the average share while stock remains, capped at the stock's value.
+ */
+function outflow(
+  s: AverageCostState,
+  q: number,
+  o: Required<ValuationOptions>,
+  field: string,
+  exact?: Minor,
+) {
   const covered = Math.min(q, Math.max(s.quantity, 0));
   const short = q - covered;
   if (short > 0 && !o.allowNegative) {
     fail(field, 'insufficient-stock', `only ${s.quantity} in stock, ${q} asked for`);
   }
   // The movement that empties the stock takes all its value: no rounding residue is left.
-  let cost = covered === s.quantity ? s.value : mulDivRound(s.value, covered, s.quantity);
+  let cost =
+    covered === s.quantity
+      ? s.value
+      : exact !== undefined && short === 0
+        ? Math.min(Math.max(exact, 0), s.value)
+        : mulDivRound(s.value, covered, s.quantity);
   if (short > 0) {
     const unit =
       s.lastUnitCost ?? fail(field, 'no-cost-known', 'no cost is known to go below zero');
@@ -100,13 +114,17 @@ export function applyAverageCost(
   let value = 0;
   let settlement = 0;
   if (dq > 0) {
-    const unit =
-      'unitCost' in m && m.unitCost !== undefined
-        ? m.unitCost
-        : currentUnitCost(state, o.decimals, `movements[${index}].unitCost`);
-    ({ cost: value, settlement } = inflow(state, dq, extendCost(dq, unit, o.decimals)));
+    const given = 'unitCost' in m ? m.unitCost : undefined;
+    const worth =
+      m.value ??
+      extendCost(
+        dq,
+        given ?? currentUnitCost(state, o.decimals, `movements[${index}].unitCost`),
+        o.decimals,
+      );
+    ({ cost: value, settlement } = inflow(state, dq, worth));
   } else if (dq < 0) {
-    ({ cost: value, settlement } = outflow(state, -dq, o, field));
+    ({ cost: value, settlement } = outflow(state, -dq, o, field, m.value));
     value = -value;
   }
   const next: AverageCostState = {
