@@ -49,6 +49,26 @@ export interface JobViewer {
 }
 
 /**
+ * The firm's jobs the viewer may see, as a query on `job as j`: all of them, but for an
+ * installer only the jobs they are booked on (job_crew). Tenant first, as every query;
+ * row-level security stands behind it.
+ */
+export function visibleJobs(tx: Tx, scope: TenantScope, viewer: JobViewer) {
+  const jobs = tx.selectFrom('job as j').where('j.tenantId', '=', scope.tenantId);
+  if (viewer.role !== 'installer') return jobs;
+  return jobs.where((eb) =>
+    eb.exists(
+      eb
+        .selectFrom('jobCrew as jc')
+        .select('jc.jobId')
+        .where('jc.tenantId', '=', scope.tenantId)
+        .whereRef('jc.jobId', '=', 'j.id')
+        .where('jc.userId', '=', viewer.userId),
+    ),
+  );
+}
+
+/**
  * Throws NotFoundError unless the job exists in this firm and the viewer may see it: an
  * installer sees only the jobs they are booked on (job_crew). Every job sub-resource (survey,
  * files, notes) calls this first, so all answer 404 alike for a job the caller may not see.
@@ -61,21 +81,6 @@ export async function assertJobVisible(
 ): Promise<void> {
   // A malformed id names no job; answer as for any other unknown job, not with a SQL error.
   if (!UUID.test(jobId)) throw new NotFoundError('The job');
-  let query = tx
-    .selectFrom('job')
-    .select('job.id')
-    .where('job.tenantId', '=', scope.tenantId)
-    .where('job.id', '=', jobId);
-  if (viewer.role === 'installer')
-    query = query.where((eb) =>
-      eb.exists(
-        eb
-          .selectFrom('jobCrew')
-          .select('jobCrew.jobId')
-          .where('jobCrew.tenantId', '=', scope.tenantId)
-          .whereRef('jobCrew.jobId', '=', 'job.id')
-          .where('jobCrew.userId', '=', viewer.userId),
-      ),
-    );
+  const query = visibleJobs(tx, scope, viewer).select('j.id').where('j.id', '=', jobId);
   if (!(await query.executeTakeFirst())) throw new NotFoundError('The job');
 }

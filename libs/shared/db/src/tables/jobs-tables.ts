@@ -1,6 +1,9 @@
 import type { ColumnType, Generated } from 'kysely';
 import type { CreatedAt, DateOnly, Defaulted, MinorUnits, Timestamp } from './column-types';
 
+/** A timestamp the database fills when an insert leaves it out (Defaulted<Timestamp> would nest). */
+type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
+
 /** Stage ids as stored; @latchwork/jobs-domain's STAGES and the check constraint agree. */
 export type JobStage =
   | 'enquiry'
@@ -39,16 +42,16 @@ export interface JobsTables {
     source: Defaulted<string>;
     ownerUserId: string | null;
     stage: Defaulted<JobStage>;
-    stageChangedAt: Defaulted<Timestamp>;
+    stageChangedAt: DefaultedTimestamp;
     lostReason: string | null;
-    enquiryOn: Defaulted<DateOnly>;
+    enquiryOn: ColumnType<string, string | undefined, string>;
     surveyAt: Timestamp | null;
     quoteDueOn: DateOnly | null;
     installStartOn: DateOnly | null;
     installEndOn: DateOnly | null;
     createdBy: string | null;
     createdAt: CreatedAt;
-    updatedAt: Defaulted<Timestamp>;
+    updatedAt: DefaultedTimestamp;
   };
   jobStageMove: {
     id: Generated<string>;
@@ -60,7 +63,7 @@ export interface JobsTables {
     /** Set when a rule rather than a person moved the job (e.g. `quote-sent`). */
     rule: string | null;
     movedBy: string | null;
-    movedAt: Defaulted<Timestamp>;
+    movedAt: DefaultedTimestamp;
   };
   /** One line of a job's timeline; append-only. `kind` e.g. `stage-move`, `note`, `file-uploaded`. */
   jobEvent: {

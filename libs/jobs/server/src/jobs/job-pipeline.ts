@@ -1,0 +1,161 @@
+import { sql } from 'kysely';
+import type { TenantScope, Tx } from '@latchwork/shared-db';
+import {
+  addMinor,
+  OPEN_PIPELINE_STAGES,
+  pipelineCsv,
+  STAGE_LABELS,
+  STAGES,
+  type PipelineJob,
+  type Stage,
+} from '@latchwork/jobs-domain';
+import type { JobViewer } from './job-events';
+import {
+  filteredJobs,
+  listedJob,
+  listedJobs,
+  orderFor,
+  toMinor,
+  type ListedJob,
+} from './job-query';
+import type { BoardQuery, JobFilter, ListQuery } from './job.schemas';
+
+/** One page of the job table, sorted on the server, with the number of rows in all. */
+export async function listJobs(tx: Tx, scope: TenantScope, viewer: JobViewer, query: ListQuery) {
+  const total = await filteredJobs(tx, scope, viewer, query)
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .executeTakeFirstOrThrow();
+  const rows = await listedJobs(tx, scope, viewer, query)
+    .orderBy(orderFor(query.sort, query.dir))
+    .limit(query.pageSize)
+    .offset((query.page - 1) * query.pageSize)
+    .execute();
+  return { items: rows.map(listedJob), total: Number(total.n) };
+}
+
+/** Cards of one column, newest move first: the order the board shows them in. */
+async function columnCards(
+  tx: Tx,
+  scope: TenantScope,
+  viewer: JobViewer,
+  filter: JobFilter,
+  stage: Stage,
+  offset: number,
+  limit: number,
+): Promise<{ cards: ListedJob[]; more: boolean }> {
+  const rows = await listedJobs(tx, scope, viewer, { ...filter, stage: [stage] })
+    .orderBy('j.stageChangedAt', 'desc')
+    .orderBy('j.number', 'desc')
+    .offset(offset)
+    .limit(limit + 1)
+    .execute();
+  return { cards: rows.slice(0, limit).map(listedJob), more: rows.length > limit };
+}
+
+interface Totals {
+  count: number;
+  valueMinor: number;
+  unvalued: number;
+}
+
+/**
+ * The board: every stage's count, value and first cards after the filters, and the open
+ * pipeline's totals (see OPEN_PIPELINE_STAGES). With `column`, only that column's cards from
+ * `offset` (to show more of a long column). Totals are summed by PostgreSQL, in integer minor
+ * units, over every matching job, not just the cards shown.
+ */
+export async function board(tx: Tx, scope: TenantScope, viewer: JobViewer, query: BoardQuery) {
+  if (query.column) {
+    const column = await columnCards(
+      tx,
+      scope,
+      viewer,
+      query,
+      query.column,
+      query.offset,
+      query.limit,
+    );
+    return { stage: query.column, ...column };
+  }
+  const sums = await filteredJobs(tx, scope, viewer, query)
+    .select([
+      'j.stage',
+      (eb) => eb.fn.countAll<string>().as('count'),
+      sql<string | null>`sum(j.value_estimate_minor)`.as('valueMinor'),
+      sql<string>`count(*) filter (where j.value_estimate_minor is null)`.as('unvalued'),
+    ])
+    .groupBy('j.stage')
+    .execute();
+  const byStage = new Map(
+    sums.map((s) => [
+      s.stage as Stage,
+      {
+        count: Number(s.count),
+        valueMinor: toMinor(s.valueMinor) ?? 0,
+        unvalued: Number(s.unvalued),
+      },
+    ]),
+  );
+  const zero: Totals = { count: 0, valueMinor: 0, unvalued: 0 };
+  const add = (a: Totals, b: Totals): Totals => ({
+    count: a.count + b.count,
+    valueMinor: addMinor(a.valueMinor, b.valueMinor),
+    unvalued: a.unvalued + b.unvalued,
+  });
+  const stages = query.stage?.length ? STAGES.filter((s) => query.stage?.includes(s)) : STAGES;
+  const columns = [];
+  for (const stage of stages) {
+    const totals = byStage.get(stage) ?? zero;
+    const cards = totals.count
+      ? await columnCards(tx, scope, viewer, query, stage, 0, query.limit)
+      : { cards: [], more: false };
+    columns.push({ stage, label: STAGE_LABELS[stage], ...totals, ...cards });
+  }
+  const all = [...byStage.values()].reduce(add, zero);
+  const openPipeline = OPEN_PIPELINE_STAGES.map((s) => byStage.get(s) ?? zero).reduce(add, zero);
+  return { columns, openPipeline, all };
+}
+
+/** Hard limit of one export, so a single request cannot hold the API for long. */
+export const EXPORT_MAX_ROWS = 100_000;
+
+/** The table's rows after the same filters and sort, as the CSV file a spreadsheet opens. */
+export async function exportCsv(
+  tx: Tx,
+  scope: TenantScope,
+  viewer: JobViewer,
+  query: ListQuery,
+): Promise<string> {
+  const tenant = await tx
+    .selectFrom('tenant')
+    .select('currency')
+    .where('id', '=', scope.tenantId)
+    .executeTakeFirstOrThrow();
+  const rows = await listedJobs(tx, scope, viewer, query)
+    .orderBy(orderFor(query.sort, query.dir))
+    .limit(EXPORT_MAX_ROWS)
+    .execute();
+  const jobs: PipelineJob[] = rows.map(listedJob).map((j) => ({
+    id: j.id,
+    reference: j.reference,
+    title: j.title,
+    stage: j.stage,
+    valueMinor: j.valueEstimateMinor,
+    ownerId: j.ownerUserId,
+    ownerName: j.ownerName,
+    customerId: j.customerId,
+    customerName: j.customerName,
+    enquiredOn: j.enquiryOn,
+    stageChangedOn: j.stageChangedAt.toISOString().slice(0, 10),
+    expectedStartOn: j.installStartOn,
+  }));
+  return pipelineCsv(jobs, minorDigits(tenant.currency));
+}
+
+/** The currency's minor-unit digits as ISO 4217 gives them (GBP 2, JPY 0, BHD 3), via ICU. */
+export function minorDigits(currency: string): number {
+  return (
+    new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions()
+      .maximumFractionDigits ?? 2
+  );
+}
