@@ -49,7 +49,8 @@ function customerColumns(digits: number) {
     externalRef: {
       heading: 'Reference',
       aliases: ['ref', 'external ref', 'account', 'account no'],
-      parse: text(100),
+      // The customer table holds at most 60 characters (migration 2026_12_02_0100).
+      parse: text(60),
     },
     contactName: { heading: 'Contact', aliases: ['contact name'], parse: text(200) },
     contactRole: { heading: 'Contact role', aliases: ['role', 'position'], parse: text(100) },

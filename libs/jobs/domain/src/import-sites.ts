@@ -17,11 +17,12 @@ const siteColumns = {
   customerRef: {
     heading: 'Customer reference',
     aliases: ['customer ref', 'account', 'account no'],
-    parse: text(100),
+    parse: text(60),
   },
   customerEmail: { heading: 'Customer email', parse: email },
   name: { heading: 'Site name', aliases: ['site', 'name'], parse: text(200) },
-  externalRef: { heading: 'Site reference', aliases: ['site ref'], parse: text(100) },
+  // References are at most 60 characters in the customer and site tables.
+  externalRef: { heading: 'Site reference', aliases: ['site ref'], parse: text(60) },
   address1: {
     heading: 'Address 1',
     aliases: ['address', 'address line 1', 'street'],

@@ -87,6 +87,17 @@ describe('validateCustomerRows', () => {
     expect(validateCustomerRows([{ name: 'A', email: long.slice(1) }]).errors).toHaveLength(0);
   });
 
+  it('references: 60 characters at most, as the customer and site tables hold', () => {
+    const ref = 'R'.repeat(61);
+    expect(validateCustomerRows([{ name: 'A', ref }]).errors).toEqual([
+      { row: 2, column: 'Reference', message: 'At most 60 characters (this has 61).' },
+    ]);
+    expect(validateCustomerRows([{ name: 'A', ref: ref.slice(1) }]).errors).toEqual([]);
+    const site = { 'customer ref': 'C1', address: '1 Mill Row' };
+    expect(validateSiteRows([{ ...site, 'site ref': ref }]).errors).toHaveLength(1);
+    expect(validateSiteRows([{ ...site, 'customer ref': ref }]).errors).toHaveLength(1);
+  });
+
   it('headings match whatever spacing, case or separators people use', () => {
     expect(normaliseHeading('\uFEFFE-Mail_Address ')).toBe('email address');
     expect(normaliseHeading('Post.Code')).toBe('post code');
