@@ -1,7 +1,7 @@
 import type { Kysely } from 'kysely';
 import { withTenant, type Database, type Role } from '@latchwork/shared-db';
 import type { WalkerFixture } from './fixture';
-import { createTestJob } from './survey';
+import { createJob } from '../../../libs/jobs/server/src/jobs/job.repository';
 
 const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 8)}`;
 
@@ -72,22 +72,20 @@ export async function newFirm(db: Kysely<Database>, jobPrefix = 'JT-') {
   return { tenantId: tenant.id, slug, users, names };
 }
 
-/** Firm A's job for the route walk, at Enquiry with its first history line. */
+/** Firm A's job for the route walk, opened as the API opens one. */
 export const jobsWalk: WalkerFixture = {
   async prepare({ db, tenantA, ownerA }) {
-    const { jobId, customerId, siteId } = await createTestJob(
-      db,
-      tenantA,
-      ownerA,
-      'Walker garage floor',
+    const { customerId, siteId } = await newCustomer(db, tenantA, `Walker Jobs ${unique()}`);
+    const scope = { tenantId: tenantA };
+    const job = await withTenant(db, scope, (tx) =>
+      createJob(tx, scope, ownerA, {
+        title: 'Walker garage floor',
+        customerId,
+        siteId,
+        source: 'walker',
+      }),
     );
-    await withTenant(db, { tenantId: tenantA }, (tx) =>
-      tx
-        .insertInto('jobStageMove')
-        .values({ tenantId: tenantA, jobId, toStage: 'enquiry', movedBy: ownerA })
-        .execute(),
-    );
-    return { jobId, walkerCustomerId: customerId, walkerSiteId: siteId };
+    return { jobId: job.id, walkerCustomerId: customerId, walkerSiteId: siteId };
   },
   bodies: {
     'POST /api/v1/jobs': (_firm, params) => ({
