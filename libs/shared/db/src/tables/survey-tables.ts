@@ -1,6 +1,9 @@
 import type { ColumnType, Generated } from 'kysely';
 import type { CreatedAt, Defaulted, Timestamp } from './column-types';
 
+/** A timestamp the database defaults on insert and the code sets on update. */
+type TouchedAt = ColumnType<Date, Date | string | undefined, Date | string>;
+
 export type Substrate = 'concrete' | 'screed' | 'asphalt' | 'timber' | 'existing_floor';
 export type StoredReadingKind =
   | 'relative_humidity'
@@ -28,7 +31,7 @@ export interface SurveyTables {
     surveyorUserId: string | null;
     notes: Defaulted<string>;
     createdAt: CreatedAt;
-    updatedAt: Defaulted<Timestamp>;
+    updatedAt: TouchedAt;
   };
   surveyArea: {
     id: Generated<string>;
@@ -72,7 +75,7 @@ export interface SurveyTables {
     tenantId: string;
     slabLimits: Json<Record<string, unknown>>;
     updatedBy: string | null;
-    updatedAt: Defaulted<Timestamp>;
+    updatedAt: TouchedAt;
   };
   fileLink: {
     id: Generated<string>;
