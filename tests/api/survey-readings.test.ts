@@ -1,9 +1,9 @@
 import request from 'supertest';
 import Decimal from 'decimal.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { withTenant } from '@latchwork/shared-db';
 import { createTestApi } from './api-harness';
 import { demoIds, sessionFor, type TestSession } from './sessions';
+import { newFirm } from './walker/jobs';
 import { createTestJob } from './walker/survey';
 
 const { app, deps } = createTestApi();
@@ -118,30 +118,9 @@ describe("a firm's own limits", () => {
 
   beforeAll(async () => {
     // A firm of its own, so changing its limits cannot disturb any other test.
-    const tenant = await deps.db
-      .insertInto('tenant')
-      .values({ slug: `limits-${tag}`, name: `Limits Test Flooring ${tag}` })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    const user = await deps.db
-      .insertInto('appUser')
-      .values({ email: `limits-${tag}@limits-test.test`, name: 'Lim Owner' })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    await withTenant(deps.db, { tenantId: tenant.id }, (tx) =>
-      tx
-        .insertInto('membership')
-        .values({
-          tenantId: tenant.id,
-          userId: user.id,
-          role: 'owner',
-          invitedBy: null,
-          joinedAt: new Date(),
-        })
-        .execute(),
-    );
-    firmOwner = await sessionFor(deps.db, user.id, tenant.id);
-    ({ jobId: firmJob } = await createTestJob(deps.db, tenant.id, user.id));
+    const firm = await newFirm(deps.db);
+    firmOwner = await sessionFor(deps.db, firm.users.owner, firm.tenantId);
+    ({ jobId: firmJob } = await createTestJob(deps.db, firm.tenantId, firm.users.owner));
   });
 
   it('lists the defaults with their sources and no overrides', async () => {

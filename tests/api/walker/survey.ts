@@ -1,59 +1,24 @@
-import { sql, type Kysely } from 'kysely';
+import type { Kysely } from 'kysely';
 import { withTenant, type Database } from '@latchwork/shared-db';
 import type { WalkerFixture } from './fixture';
+import { newCustomer } from './jobs';
+import { createJob } from '../../../libs/jobs/server/src/jobs/job.repository';
 
 const unique = () => `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
 
-/**
- * A customer, a site and a job at Enquiry in the given firm, made straight in the database for
- * the survey and file tests. The job number comes from the firm's counter, exactly as the job
- * endpoints take it, so references stay gapless for everyone else's tests.
- */
+/** A customer, a site and a job at Enquiry in the firm, opened as the API opens one. */
 export async function createTestJob(
   db: Kysely<Database>,
   tenantId: string,
   userId: string,
   title = `Survey test job ${unique()}`,
 ): Promise<{ jobId: string; customerId: string; siteId: string }> {
-  return withTenant(db, { tenantId }, async (tx) => {
-    const customer = await tx
-      .insertInto('customer')
-      .values({
-        tenantId,
-        kind: 'business',
-        name: `Survey Customer ${unique()}`,
-        createdBy: userId,
-      })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    const site = await tx
-      .insertInto('site')
-      .values({ tenantId, customerId: customer.id, addressLines: [`${unique()} Survey Lane`] })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    const counter = await tx
-      .insertInto('jobCounter')
-      .values({ tenantId, lastNumber: 1 })
-      .onConflict((oc) =>
-        oc.column('tenantId').doUpdateSet({ lastNumber: sql`job_counter.last_number + 1` }),
-      )
-      .returning('lastNumber')
-      .executeTakeFirstOrThrow();
-    const job = await tx
-      .insertInto('job')
-      .values({
-        tenantId,
-        number: counter.lastNumber,
-        reference: `T-${counter.lastNumber}`,
-        title,
-        customerId: customer.id,
-        siteId: site.id,
-        createdBy: userId,
-      })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    return { jobId: job.id, customerId: customer.id, siteId: site.id };
-  });
+  const { customerId, siteId } = await newCustomer(db, tenantId);
+  const scope = { tenantId };
+  const job = await withTenant(db, scope, (tx) =>
+    createJob(tx, scope, userId, { title, customerId, siteId, source: 'survey tests' }),
+  );
+  return { jobId: job.id, customerId, siteId };
 }
 
 /** A 3 × 2 m floor at 500 mm: the smallest body the takeoff version route computes. */
