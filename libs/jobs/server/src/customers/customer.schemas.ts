@@ -12,7 +12,11 @@ const optionalText = (max: number) =>
   trimmed(max)
     .nullish()
     .transform((v) => (v ? v : null));
-const addressLines = z.array(trimmed(200)).max(6, 'at most 6 address lines');
+/** Address lines as typed; blank lines (a form's empty second line) are dropped. */
+const addressLines = z
+  .array(trimmed(200))
+  .max(6, 'at most 6 address lines')
+  .transform((lines) => lines.filter((l) => l.length > 0));
 
 export const customerKind = z.enum(['business', 'homeowner']);
 export const customerIdParams = z.object({ customerId: z.uuid() });
@@ -48,41 +52,62 @@ export const siteSummary = z.object({
   postcode: z.string().nullable(),
 });
 
+/** An e-mail address that may be cleared: empty text is stored as null. */
+const optionalEmail = z.preprocess(
+  (v) => (v === '' ? null : v),
+  z.email('not an e-mail address').max(254).toLowerCase().nullish(),
+);
+/** Postcodes are stored upper case with single spaces, as the import stores them. */
+const optionalPostcode = optionalText(16).transform(
+  (v) => v?.toUpperCase().replace(/\s+/g, ' ') ?? null,
+);
+
+/*
+ * No `.default()` in these: a PATCH is the same schema made partial, and a default would
+ * overwrite a field the caller did not send. The database supplies the defaults on insert.
+ */
 export const contactInput = z.object({
+  /** Sent back for a contact already on file, so its id stays valid. */
+  id: z.uuid().optional(),
   name: trimmed(200).min(1, 'a contact needs a name'),
-  role: trimmed(100).default(''),
-  email: z.email().max(254).toLowerCase().nullish(),
+  role: trimmed(100).optional(),
+  email: optionalEmail,
   phone: optionalText(40),
 });
+export type ContactInput = z.output<typeof contactInput>;
 
 export const customerInput = z.object({
   kind: customerKind,
   name: trimmed(200).min(1, 'a customer needs a name'),
   externalRef: optionalText(60),
-  email: z.email().max(254).toLowerCase().nullish(),
+  email: optionalEmail,
   phone: optionalText(40),
-  billingAddressLines: addressLines.default([]),
-  postcode: optionalText(16).transform((v) => v?.toUpperCase().replace(/\s+/g, ' ') ?? null),
+  billingAddressLines: addressLines.optional(),
+  postcode: optionalPostcode,
   /** Overrides the firm's payment terms; null uses the firm's. */
   paymentTermsDays: z.number().int().min(0).max(365).nullish(),
-  /** Integer minor units of the firm's currency, e.g. 250000 for £2,500.00. */
+  /** Integer minor units of the firm's currency, e.g. 250000 for £2,500.00 (GBP has 2 digits). */
   creditLimitMinor: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER).nullish(),
-  notes: trimmed(4000).default(''),
-  contacts: z.array(contactInput).max(20, 'at most 20 contacts').default([]),
+  notes: trimmed(4000).optional(),
+  contacts: z.array(contactInput).max(20, 'at most 20 contacts').optional(),
 });
 export type CustomerInput = z.output<typeof customerInput>;
+export const customerPatch = customerInput.partial();
+export type CustomerPatch = z.output<typeof customerPatch>;
 
 export const siteInput = z.object({
-  name: trimmed(200).default(''),
+  name: trimmed(200).optional(),
   externalRef: optionalText(60),
-  addressLines: addressLines.min(1, 'a site needs at least its first address line'),
-  postcode: optionalText(16).transform((v) => v?.toUpperCase().replace(/\s+/g, ' ') ?? null),
-  accessNotes: trimmed(2000).default(''),
-  parking: trimmed(500).default(''),
-  floorType: trimmed(100).default(''),
-  openingHours: trimmed(200).default(''),
+  addressLines: addressLines.refine((l) => l.length > 0, 'a site needs its first address line'),
+  postcode: optionalPostcode,
+  accessNotes: trimmed(2000).optional(),
+  parking: trimmed(500).optional(),
+  floorType: trimmed(100).optional(),
+  openingHours: trimmed(200).optional(),
 });
 export type SiteInput = z.output<typeof siteInput>;
+export const sitePatch = siteInput.partial();
+export type SitePatch = z.output<typeof sitePatch>;
 
 export const site = siteSummary.extend({
   customerId: z.string(),

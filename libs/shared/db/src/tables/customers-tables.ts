@@ -1,5 +1,11 @@
-import type { Generated } from 'kysely';
-import type { CreatedAt, Defaulted, MinorUnits, Timestamp } from './column-types';
+import type { ColumnType, Generated } from 'kysely';
+import type { CreatedAt, Defaulted, MinorUnits } from './column-types';
+
+/**
+ * Defaulted by the database on insert and set on every update. (`Defaulted<Timestamp>`
+ * would nest two column types, which Kysely reads as "never writable".)
+ */
+type UpdatedAt = ColumnType<Date, Date | string | undefined, Date | string>;
 
 export type CustomerKind = 'business' | 'homeowner';
 
@@ -22,7 +28,7 @@ export interface CustomersTables {
     notes: Defaulted<string>;
     createdBy: string | null;
     createdAt: CreatedAt;
-    updatedAt: Defaulted<Timestamp>;
+    updatedAt: UpdatedAt;
   };
   customerContact: {
     id: Generated<string>;
@@ -48,6 +54,6 @@ export interface CustomersTables {
     floorType: Defaulted<string>;
     openingHours: Defaulted<string>;
     createdAt: CreatedAt;
-    updatedAt: Defaulted<Timestamp>;
+    updatedAt: UpdatedAt;
   };
 }
