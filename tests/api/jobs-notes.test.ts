@@ -89,7 +89,7 @@ describe('GET /api/v1/jobs/:jobId/timeline', () => {
     let before: string | null = null;
     let pages = 0;
     do {
-      const res = await request(app)
+      const res: request.Response = await request(app)
         .get(`/api/v1/jobs/${jobId}/timeline`)
         .query({ limit: 3, ...(before ? { before } : {}) })
         .set(as(estimator))
