@@ -88,14 +88,3 @@ export function listSiteSummaries(tx: Tx, scope: TenantScope, customerId: string
     .orderBy('createdAt')
     .execute();
 }
-
-/** Whether the customer exists in the firm (other firms' ids are simply not found). */
-export async function customerExists(tx: Tx, scope: TenantScope, customerId: string) {
-  const row = await tx
-    .selectFrom('customer')
-    .select('id')
-    .where('tenantId', '=', scope.tenantId)
-    .where('id', '=', customerId)
-    .executeTakeFirst();
-  return row !== undefined;
-}
