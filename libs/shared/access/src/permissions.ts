@@ -22,6 +22,8 @@ export const PERMISSIONS = {
   'takeoffs:write': ['owner', 'estimator'],
   'stock:read': ['owner', 'estimator', 'stores'],
   'stock:write': ['owner', 'stores'],
+  // Posting a stock count whose variances exceed the firm's threshold.
+  'stock:approve': ['owner'],
   'quotes:read': ['owner', 'estimator', 'bookkeeper'],
   'quotes:write': ['owner', 'estimator'],
   'invoices:read': ['owner', 'bookkeeper'],

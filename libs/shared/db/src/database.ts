@@ -4,6 +4,7 @@ import type { CustomersTables } from './tables/customers-tables';
 import type { JobsTables } from './tables/jobs-tables';
 import type { SurveyTables } from './tables/survey-tables';
 import type { StockTables } from './tables/stock-tables';
+import type { PurchasingTables } from './tables/purchasing-tables';
 
 /** The role column's values; the database's check constraint and @latchwork/shared-access's ROLES agree. */
 export type Role = 'owner' | 'estimator' | 'stores' | 'bookkeeper' | 'installer';
@@ -17,7 +18,12 @@ export type EmailStatus = 'queued' | 'sent' | 'failed';
  * row-level security on `app.tenant_id` (see migrations). Each feature's tables are declared in
  * its own file under ./tables.
  */
-export interface Database extends CustomersTables, JobsTables, SurveyTables, StockTables {
+export interface Database
+  extends CustomersTables,
+    JobsTables,
+    SurveyTables,
+    StockTables,
+    PurchasingTables {
   tenant: {
     id: Generated<string>;
     slug: string;

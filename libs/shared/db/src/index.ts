@@ -15,3 +15,8 @@ export type {
   SupplierContact,
   WriteOffReason,
 } from './tables/stock-tables';
+export type {
+  PurchaseOrderStatus,
+  StockCountReason,
+  StockCountStatus,
+} from './tables/purchasing-tables';
