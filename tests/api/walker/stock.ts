@@ -34,6 +34,31 @@ export async function makeStockJob(db: Kysely<Database>, tenantId: string): Prom
   });
 }
 
+/** Headers of a signed-in session for supertest. */
+export const stockAs = (s: { cookie: string; csrfToken: string }) => ({
+  Cookie: s.cookie,
+  'X-XSRF-TOKEN': s.csrfToken,
+});
+
+/** A valid product body of `kind` with a unique SKU (tiles come in boxes of 24). */
+export function productBody(kind = 'tile', extra: Record<string, unknown> = {}) {
+  const tile = kind === 'tile';
+  return {
+    sku: stockTestName(kind.toUpperCase()),
+    name: `Test ${kind} ${unique()}`,
+    kind,
+    attributes: tile ? { colour: 'Graphite', thicknessMm: 7, pitchMm: 500 } : {},
+    unitOne: tile ? 'tile' : 'unit',
+    unitOther: tile ? 'tiles' : 'units',
+    packOne: 'box',
+    packOther: 'boxes',
+    packSize: tile ? 24 : 1,
+    costMinor: 250,
+    priceMinor: 420,
+    ...extra,
+  };
+}
+
 /** Unique names for objects the stock tests create. */
 export const stockTestName = (prefix: string) => `${prefix}-${unique()}`;
 

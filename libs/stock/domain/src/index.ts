@@ -85,3 +85,17 @@ export {
   type CountVariance,
 } from './counts/variance';
 export { validateMovement, type MovementContext, type MovementInput } from './validate';
+export {
+  ATTRIBUTE_FIELDS,
+  EXPIRING_KINDS,
+  PRODUCT_KINDS,
+  attributeProblems,
+  type AttributeField,
+  type ProductKindId,
+} from './catalogue/attributes';
+export {
+  estimateFromTakeoffs,
+  materialKey,
+  type EstimateLine,
+  type TakeoffMaterialsSummary,
+} from './materials/estimate';

@@ -1,10 +1,23 @@
 import type { EndpointDef } from '@latchwork/shared-server-kit';
 import type { StockDeps } from './stock-deps';
+import { productEndpoints } from './catalogue/product.endpoints';
+import { supplierEndpoints } from './catalogue/supplier.endpoints';
+import { placesEndpoints } from './places/places.endpoints';
+import { movementEndpoints } from './ledger/movement.endpoints';
+import { reservationEndpoints } from './reservations/reservation.endpoints';
+import { reportEndpoints } from './reports/report.endpoints';
 
 export type { StockDeps } from './stock-deps';
 export * from './ledger';
 
 /** Catalogue, locations and batches, the stock ledger, reservations, counts and purchasing. */
-export function stockEndpoints(_deps: StockDeps): EndpointDef[] {
-  return [];
+export function stockEndpoints(deps: StockDeps): EndpointDef[] {
+  return [
+    ...productEndpoints(deps),
+    ...supplierEndpoints(deps),
+    ...placesEndpoints(deps),
+    ...movementEndpoints(deps),
+    ...reservationEndpoints(deps),
+    ...reportEndpoints(deps),
+  ];
 }

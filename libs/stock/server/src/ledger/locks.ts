@@ -23,7 +23,7 @@ function parseKey(key: string) {
 export async function lockCostStates(
   tx: Tx,
   scope: TenantScope,
-  movements: readonly MovementRequest[],
+  movements: readonly Pick<MovementRequest, 'productId'>[],
 ): Promise<Map<string, AverageCostState>> {
   const productIds = [...new Set(movements.map((m) => m.productId))].sort();
   const states = new Map<string, AverageCostState>();

@@ -5,7 +5,6 @@
  * two people issuing the last boxes at once queue behind each other and the second one sees
  * what the first left: it cannot take stock that is no longer there.
  */
-import { sql } from 'kysely';
 import type { TenantScope, Tx } from '@latchwork/shared-db';
 import {
   applyAverageCost,
@@ -17,6 +16,7 @@ import {
   type ValuationMovement,
 } from '@latchwork/stock-domain';
 import { conflictField, throwProblems } from '../stock-errors';
+import { dbToday } from '../stock-tx';
 import {
   checkShapes,
   loadContext,
@@ -122,9 +122,7 @@ export async function postMovements(
   options: PostOptions = {},
 ): Promise<PostedMovement[]> {
   const at = options.at ?? ((i: number) => `movements.${i}.`);
-  const today =
-    options.today ??
-    (await sql<{ d: string }>`select current_date::text as d`.execute(tx)).rows[0].d;
+  const today = options.today ?? (await dbToday(tx));
   const ctx = await loadContext(tx, scope, movements, at);
   checkShapes(movements, ctx, actor, today, at);
 
