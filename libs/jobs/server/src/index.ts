@@ -6,6 +6,7 @@ import { surveyEndpoints } from './survey/survey.endpoints';
 import { fileEndpoints } from './files/file.endpoints';
 
 export type { JobsDeps } from './jobs-deps';
+export * from './survey';
 
 /** Customers, sites, jobs and their pipeline, site surveys and files. */
 export function jobsEndpoints(deps: JobsDeps): EndpointDef[] {
