@@ -127,4 +127,43 @@ describe('postMovements', () => {
       });
     });
   });
+
+  it('goes below zero only where the firm allows it, costed at the last average', async () => {
+    await inFirm(async (tx) => {
+      // Inside this transaction only: other tests of firm B never see the setting.
+      await tx
+        .insertInto('stockSetting')
+        .values({ tenantId, allowNegativeStock: true })
+        .onConflict((oc) => oc.column('tenantId').doUpdateSet({ allowNegativeStock: true }))
+        .execute();
+      const { id: productId } = await newProduct(tx);
+      const { id: van } = await newLocation(tx, stockTestName('Van'));
+      await postMovements(tx, { tenantId }, actor, [
+        { kind: 'receipt', productId, toLocationId: van, quantity: 2, unitCostMinor: 4000 },
+      ]);
+      const [issued] = await postMovements(tx, { tenantId }, actor, [
+        { kind: 'issue', productId, fromLocationId: van, quantity: 3, jobId },
+      ]);
+      // 2 at 40.00 plus 1 short at the last average 40.00 (arithmetic).
+      expect(issued.valueMinor).toBe(-12000);
+      const [balance] = await tx
+        .selectFrom('stockBalance')
+        .select('quantity')
+        .where('productId', '=', productId)
+        .execute();
+      expect(balance.quantity).toBe('-1');
+      // The receipt that fills the hole at 46.00 settles the 6.00 difference (arithmetic).
+      const [receipt] = await postMovements(tx, { tenantId }, actor, [
+        { kind: 'receipt', productId, toLocationId: van, quantity: 1, unitCostMinor: 4600 },
+      ]);
+      expect(receipt.settlementMinor).toBe(600);
+      expect(await checkLedger(tx, { tenantId })).toEqual({ balances: [], costs: [] });
+      // Back to the default before the transaction ends, so no other test sees it.
+      await tx
+        .updateTable('stockSetting')
+        .set({ allowNegativeStock: false })
+        .where('tenantId', '=', tenantId)
+        .execute();
+    });
+  });
 });

@@ -1,6 +1,7 @@
 import { sql, type Kysely } from 'kysely';
 import { withTenant, type Database } from '@latchwork/shared-db';
-import type { WalkerFixture } from './fixture';
+import { postMovements } from '@latchwork/stock-server';
+import type { WalkerFixture, WalkerSetup } from './fixture';
 
 const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
 
@@ -62,8 +63,135 @@ export function productBody(kind = 'tile', extra: Record<string, unknown> = {}) 
 /** Unique names for objects the stock tests create. */
 export const stockTestName = (prefix: string) => `${prefix}-${unique()}`;
 
-// Filled as the routes land.
+/** Firm A's stock objects the walk aims at: product, supplier, location, batch, movement, reservation. */
+async function prepareStock({ db, tenantA, ownerA }: WalkerSetup) {
+  const stockJobId = await makeStockJob(db, tenantA);
+  return withTenant(db, { tenantId: tenantA }, async (tx) => {
+    const scope = { tenantId: tenantA };
+    const supplierName = stockTestName('Walker supplier');
+    const supplier = await tx
+      .insertInto('supplier')
+      .values({ tenantId: tenantA, name: supplierName, contacts: '[]' })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const body = productBody('tile');
+    const product = await tx
+      .insertInto('product')
+      .values({
+        tenantId: tenantA,
+        ...body,
+        attributes: JSON.stringify(body.attributes),
+        kitComponents: '[]',
+        kind: 'tile',
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const locationName = stockTestName('Walker shelf');
+    const location = await tx
+      .insertInto('stockLocation')
+      .values({ tenantId: tenantA, name: locationName, kind: 'warehouse' })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const batch = await tx
+      .insertInto('stockBatch')
+      .values({
+        tenantId: tenantA,
+        productId: product.id,
+        code: stockTestName('WB'),
+        receivedOn: '2026-11-01',
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const actor = { userId: ownerA, role: 'owner' as const };
+    const [movement] = await postMovements(tx, scope, actor, [
+      {
+        kind: 'receipt',
+        productId: product.id,
+        batchId: batch.id,
+        toLocationId: location.id,
+        quantity: 96,
+        unitCostMinor: 250,
+      },
+    ]);
+    const reservation = await tx
+      .insertInto('reservation')
+      .values({
+        tenantId: tenantA,
+        jobId: stockJobId,
+        productId: product.id,
+        batchId: batch.id,
+        quantity: 24,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    return {
+      productId: product.id,
+      stockProductSku: body.sku,
+      supplierId: supplier.id,
+      stockSupplierName: supplierName,
+      locationId: location.id,
+      stockLocationName: locationName,
+      batchId: batch.id,
+      movementId: movement.id,
+      reservationId: reservation.id,
+      stockJobId,
+    };
+  });
+}
+
+type Params = Record<string, string>;
+
 export const stockWalk: WalkerFixture = {
-  prepare: async () => ({}),
-  bodies: {},
+  prepare: prepareStock,
+  bodies: {
+    'POST /api/v1/stock/products': () => productBody('tile'),
+    'PUT /api/v1/stock/products/:productId': (_f, p: Params) =>
+      productBody('tile', { sku: p['stockProductSku'] }),
+    'POST /api/v1/stock/suppliers': () => ({ name: stockTestName('Walker supplier') }),
+    'PUT /api/v1/stock/suppliers/:supplierId': (_f, p: Params) => ({
+      name: p['stockSupplierName'],
+      leadTimeDays: 5,
+    }),
+    'DELETE /api/v1/stock/suppliers/:supplierId': () => ({}),
+    'POST /api/v1/stock/locations': () => ({ name: stockTestName('Walker van'), kind: 'van' }),
+    'PUT /api/v1/stock/locations/:locationId': (_f, p: Params) => ({
+      name: p['stockLocationName'],
+      kind: 'warehouse',
+    }),
+    'DELETE /api/v1/stock/locations/:locationId': () => ({}),
+    'POST /api/v1/stock/batches': (_f, p: Params) => ({
+      productId: p['productId'],
+      code: stockTestName('WB'),
+      receivedOn: '2026-11-02',
+    }),
+    'POST /api/v1/stock/movements': (_f, p: Params) => ({
+      kind: 'receipt',
+      productId: p['productId'],
+      batchId: p['batchId'],
+      toLocationId: p['locationId'],
+      quantity: 24,
+      unitCostMinor: 250,
+    }),
+    'POST /api/v1/stock/movements/:movementId/reverse': () => ({ note: 'route walker' }),
+    'PUT /api/v1/stock/settings': () => ({
+      allowNegativeStock: false,
+      expiryWarningDays: 30,
+      defaultServiceLevelBp: 9500,
+      holdingCostRateBp: 2500,
+    }),
+    'POST /api/v1/stock/reservations/offer': (_f, p: Params) => ({
+      jobId: p['stockJobId'],
+      productId: p['productId'],
+      quantity: 1,
+    }),
+    'POST /api/v1/stock/reservations': (_f, p: Params) => ({
+      jobId: p['stockJobId'],
+      productId: p['productId'],
+      quantity: 1,
+      acceptSplit: true,
+      acceptShort: true,
+    }),
+    'POST /api/v1/stock/reservations/:reservationId/release': () => ({}),
+    'POST /api/v1/stock/reservations/:reservationId/issue': () => ({ quantity: 1 }),
+  },
 };

@@ -1,6 +1,7 @@
 import type { EndpointDef } from '@latchwork/shared-server-kit';
 import type { StockDeps } from './stock-deps';
 import { productEndpoints } from './catalogue/product.endpoints';
+import { catalogueImportEndpoints } from './catalogue/catalogue-import.endpoints';
 import { supplierEndpoints } from './catalogue/supplier.endpoints';
 import { placesEndpoints } from './places/places.endpoints';
 import { movementEndpoints } from './ledger/movement.endpoints';
@@ -13,6 +14,7 @@ export * from './ledger';
 /** Catalogue, locations and batches, the stock ledger, reservations, counts and purchasing. */
 export function stockEndpoints(deps: StockDeps): EndpointDef[] {
   return [
+    ...catalogueImportEndpoints(deps),
     ...productEndpoints(deps),
     ...supplierEndpoints(deps),
     ...placesEndpoints(deps),
