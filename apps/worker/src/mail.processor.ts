@@ -22,7 +22,17 @@ export function mailProcessor(deps: MailProcessorDeps) {
     const attempts = job.attemptsMade + 1;
     try {
       const rendered = MAIL_TEMPLATES[data.template](data.params);
-      const info = await deps.mailer.sendMail({ from: deps.from, to: data.to, ...rendered });
+      const attachments = data.attachments?.map((a) => ({
+        filename: a.filename,
+        contentType: a.contentType,
+        content: Buffer.from(a.contentBase64, 'base64'),
+      }));
+      const info = await deps.mailer.sendMail({
+        from: deps.from,
+        to: data.to,
+        ...rendered,
+        ...(attachments ? { attachments } : {}),
+      });
       await withTenant(deps.db, scope, (tx) =>
         tx
           .updateTable('emailLog')

@@ -4,6 +4,7 @@ import { jobsWalk } from './jobs';
 import { surveyWalk } from './survey';
 import { filesWalk } from './files';
 import { stockWalk } from './stock';
+import { purchasingWalk } from './purchasing';
 
 export type { WalkerFixture, WalkerSetup } from './fixture';
 
@@ -14,4 +15,5 @@ export const FEATURE_WALKS: WalkerFixture[] = [
   surveyWalk,
   filesWalk,
   stockWalk,
+  purchasingWalk,
 ];

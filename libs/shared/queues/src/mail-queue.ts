@@ -6,12 +6,24 @@ import { MAIL_TEMPLATES, type MailTemplateName } from './mail-templates';
 
 export const MAIL_QUEUE = 'mail';
 
+/**
+ * A file sent with the e-mail (a purchase order's PDF). Carried in the job as base64: the
+ * documents are a few kilobytes, and the worker then needs nothing but the job to send.
+ */
+export const mailAttachmentSchema = z.object({
+  filename: z.string().min(1).max(200),
+  contentType: z.string().min(1).max(100),
+  contentBase64: z.base64().max(2_000_000),
+});
+export type MailAttachment = z.infer<typeof mailAttachmentSchema>;
+
 export const mailJobSchema = z.object({
   tenantId: z.uuid(),
   emailLogId: z.uuid(),
   to: z.email(),
   template: z.enum(Object.keys(MAIL_TEMPLATES) as [MailTemplateName, ...MailTemplateName[]]),
   params: z.record(z.string(), z.string()),
+  attachments: z.array(mailAttachmentSchema).max(5).optional(),
 });
 export type MailJob = z.infer<typeof mailJobSchema>;
 
@@ -43,7 +55,12 @@ export async function enqueueMail(
   db: Kysely<Database>,
   queue: Queue<MailJob>,
   scope: TenantScope,
-  message: { to: string; template: MailTemplateName; params: Record<string, string> },
+  message: {
+    to: string;
+    template: MailTemplateName;
+    params: Record<string, string>;
+    attachments?: MailAttachment[];
+  },
 ): Promise<string> {
   const subject = MAIL_TEMPLATES[message.template](message.params).subject;
   const row = await withTenant(db, scope, (tx) =>

@@ -81,6 +81,21 @@ export const MAIL_TEMPLATES = {
       html: layout(subject, lines, { label: 'Open the job', url }),
     };
   },
+  /** A purchase order to a supplier; the order itself is the attached PDF. */
+  purchaseOrder(params: Record<string, string>): RenderedMail {
+    const firm = required(params, 'firm');
+    const reference = required(params, 'reference');
+    const supplier = required(params, 'supplier');
+    const subject = `Purchase order ${reference} from ${firm}`;
+    const lines = [
+      `Dear ${supplier},`,
+      `Please find our purchase order ${reference} attached.`,
+      ...(params['message'] ? [params['message']] : []),
+      `Please quote ${reference} on your delivery note and invoice.`,
+      firm,
+    ];
+    return { subject, text: `${lines.join('\n\n')}\n`, html: layout(subject, lines) };
+  },
 } satisfies Record<string, (params: Record<string, string>) => RenderedMail>;
 
 export type MailTemplateName = keyof typeof MAIL_TEMPLATES;

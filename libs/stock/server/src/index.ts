@@ -7,9 +7,14 @@ import { placesEndpoints } from './places/places.endpoints';
 import { movementEndpoints } from './ledger/movement.endpoints';
 import { reservationEndpoints } from './reservations/reservation.endpoints';
 import { reportEndpoints } from './reports/report.endpoints';
+import { countEndpoints } from './counts/count.endpoints';
+import { purchaseOrderEndpoints } from './purchasing/po.endpoints';
+import { reorderEndpoints } from './reorder/reorder.endpoints';
+import { controlSettingsEndpoints } from './reorder/control-settings';
 
 export type { StockDeps } from './stock-deps';
 export * from './ledger';
+export { runReorder, type ReorderResult } from './reorder/reorder-run';
 
 /** Catalogue, locations and batches, the stock ledger, reservations, counts and purchasing. */
 export function stockEndpoints(deps: StockDeps): EndpointDef[] {
@@ -21,5 +26,9 @@ export function stockEndpoints(deps: StockDeps): EndpointDef[] {
     ...movementEndpoints(deps),
     ...reservationEndpoints(deps),
     ...reportEndpoints(deps),
+    ...controlSettingsEndpoints(deps),
+    ...countEndpoints(deps),
+    ...reorderEndpoints(deps),
+    ...purchaseOrderEndpoints(deps),
   ];
 }
