@@ -74,6 +74,22 @@ describe('GET /customers', () => {
     expect(names(byPostcode.body)).toContain('alpha Gym');
   });
 
+  it('finds a customer by its new name after a change, not by the old one', async () => {
+    const renamed = `Foxtrot Joinery ${tag}`;
+    await request(app)
+      .patch(`/api/v1/customers/${firstId}`)
+      .set(as(owner))
+      .send({ name: renamed })
+      .expect(200);
+    expect(names((await list(`q=foxtrot joinery ${tag}`)).body)).toEqual(['Foxtrot Joinery']);
+    expect((await list(`q=delta motors ${tag}`)).body.total).toBe(0);
+    await request(app)
+      .patch(`/api/v1/customers/${firstId}`)
+      .set(as(owner))
+      .send({ name: `Delta Motors ${tag}` })
+      .expect(200);
+  });
+
   it('treats % and _ in the search as ordinary characters', async () => {
     expect((await list(`q=${encodeURIComponent(`%${tag}`)}`)).body.total).toBe(0);
   });

@@ -3,12 +3,6 @@ import type { TenantScope, Tx } from '@latchwork/shared-db';
 import { CLOSED_STAGES } from '@latchwork/jobs-domain';
 import type { ListQuery } from './customer.schemas';
 
-/**
- * The text the customer search looks in. It must stay the exact expression of the trigram
- * index `customer_search_all_idx` (migration 2026_12_02_0110), or PostgreSQL cannot use it.
- */
-const searchText = sql<string>`(c.name || ' ' || coalesce(c.email::text, '') || ' ' || coalesce(c.postcode, '') || ' ' || coalesce(c.external_ref, ''))`;
-
 /** `50%_off` matched literally: LIKE wildcards in what people type are not wildcards. */
 export function likePattern(q: string): string {
   return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -16,7 +10,9 @@ export function likePattern(q: string): string {
 
 function filtered(tx: Tx, scope: TenantScope, q: string | undefined) {
   let query = tx.selectFrom('customer as c').where('c.tenantId', '=', scope.tenantId);
-  if (q) query = query.where(sql<boolean>`${searchText} ilike ${likePattern(q)}`);
+  // Name, e-mail, postcode and reference, through the trigram index of `customer_search`
+  // (migration 2026_12_02_0111 says why the search cannot read `customer` directly).
+  if (q) query = query.where(sql<boolean>`c.id in (select customer_search_ids(${likePattern(q)}))`);
   return query;
 }
 
