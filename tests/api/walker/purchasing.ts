@@ -1,7 +1,12 @@
+import type { Express } from 'express';
 import type { Kysely } from 'kysely';
-import { withTenant, type Database, type Tx } from '@latchwork/shared-db';
+import request from 'supertest';
+import { withTenant, type Database, type Role, type Tx } from '@latchwork/shared-db';
 import { postMovements } from '@latchwork/stock-server';
 import type { WalkerFixture } from './fixture';
+import { newFirm } from './jobs';
+import { stockAs } from './stock';
+import { sessionFor, type TestSession } from '../sessions';
 import { startCount } from '../../../libs/stock/server/src/counts/count-start';
 import { createPurchaseOrder } from '../../../libs/stock/server/src/purchasing/po.repository';
 
@@ -165,3 +170,25 @@ export const purchasingWalk: WalkerFixture = {
     }),
   },
 };
+
+/** A firm of its own with a signed-in session per role, and a client per role. */
+export async function purchasingFirm(db: Kysely<Database>, app: Express) {
+  const firm = await newFirm(db, 'PT-');
+  const sessions = {} as Record<Role, TestSession>;
+  for (const role of Object.keys(firm.users) as Role[])
+    sessions[role] = await sessionFor(db, firm.users[role], firm.tenantId);
+  const as = (role: Role) => {
+    const headers = stockAs(sessions[role]);
+    return {
+      get: (path: string) => request(app).get(`/api/v1${path}`).set(headers),
+      post: (path: string, body: object = {}) =>
+        request(app).post(`/api/v1${path}`).set(headers).send(body),
+      put: (path: string, body: object) =>
+        request(app).put(`/api/v1${path}`).set(headers).send(body),
+    };
+  };
+  const inFirm = <T>(work: (tx: Tx) => Promise<T>) =>
+    withTenant(db, { tenantId: firm.tenantId }, work);
+  const owner = { userId: firm.users.owner, role: 'owner' as const };
+  return { ...firm, as, inFirm, owner };
+}
