@@ -39,6 +39,11 @@ export interface MovementRequest {
   note?: string;
   /** The owner's reason for issuing an expired batch (ignored for anyone else). */
   overrideExpiredReason?: string | null;
+  /**
+   * When it happened, for bulk loads (demo data, benchmarks, imports) posted in time order;
+   * the database's now() otherwise. The API never takes it from a request.
+   */
+  at?: Date;
   /** Set by `reverseMovement` only. */
   reversesMovementId?: string | null;
   /** Set by `reverseMovement` only: the exact value to book (undoes the original exactly). */

@@ -213,6 +213,7 @@ async function insertMovement(
       overrideReason: booked.override,
       note: m.note ?? '',
       userId: actor.userId,
+      ...(m.at && { at: m.at }),
     })
     .returningAll()
     .executeTakeFirstOrThrow();
