@@ -6,6 +6,10 @@ import { z } from 'zod';
  * returned as a JSON integer in fields ending `Minor` — never a decimal number.
  */
 
+const MONEY =
+  'Money as a JSON integer of minor units of the firm’s currency (ISO 4217 minor digits: ' +
+  '250000 is £2,500.00 in GBP, ¥250,000 in JPY); never a decimal. Null when not set.';
+
 const trimmed = (max: number) => z.string().trim().max(max);
 /** Optional text that may be cleared: empty text is stored as null. */
 const optionalText = (max: number) =>
@@ -87,7 +91,7 @@ export const customerInput = z.object({
   /** Overrides the firm's payment terms; null uses the firm's. */
   paymentTermsDays: z.number().int().min(0).max(365).nullish(),
   /** Integer minor units of the firm's currency, e.g. 250000 for £2,500.00 (GBP has 2 digits). */
-  creditLimitMinor: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER).nullish(),
+  creditLimitMinor: z.number().int().min(0).max(Number.MAX_SAFE_INTEGER).nullish().describe(MONEY),
   notes: trimmed(4000).optional(),
   contacts: z.array(contactInput).max(20, 'at most 20 contacts').optional(),
 });
@@ -131,7 +135,7 @@ export const jobSummary = z.object({
   reference: z.string(),
   title: z.string(),
   stage: z.string(),
-  valueEstimateMinor: z.number().int().nullable(),
+  valueEstimateMinor: z.number().int().nullable().describe(MONEY),
   stageChangedAt: z.date(),
 });
 
@@ -140,7 +144,7 @@ export const customerDetail = customerListItem
   .extend({
     billingAddressLines: z.array(z.string()),
     paymentTermsDays: z.number().int().nullable(),
-    creditLimitMinor: z.number().int().nullable(),
+    creditLimitMinor: z.number().int().nullable().describe(MONEY),
     notes: z.string(),
     createdAt: z.date(),
     updatedAt: z.date(),
