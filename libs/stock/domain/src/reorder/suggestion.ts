@@ -154,7 +154,9 @@ export function reorderSuggestion(
       });
     }
   }
-  const packs = Math.max(1, packsToCover(wanted, product.packSize));
+  // The same epsilon as the reorder point: an EOQ of 50.00000000000001 (float noise from
+  // mean × 365) must order 50, not 51.
+  const packs = Math.max(1, packsToCover(wanted - 1e-9, product.packSize));
   const quantity = packs * product.packSize;
   if (quantity !== wanted) {
     reasons.push({
