@@ -106,9 +106,10 @@ export async function loadReorderFacts(
         <= ${today}::date + coalesce(p.lead_time_days, s.lead_time_days, ${DEFAULT_LEAD_DAYS}))
     group by r.product_id`.execute(tx);
 
-  // Issues out (+) and returns or reversals back (−) per product and calendar day.
+  // Issues out (+) and returns or reversals back (−) per product and calendar day (in the
+  // database's time zone, the one current_date, and so `today`, is in).
   const demand = await sql<{ productId: string; day: string; q: string }>`
-    select product_id, (at at time zone 'UTC')::date::text as day,
+    select product_id, at::date::text as day,
       sum(case when to_location_id is null then quantity else -quantity end)::text as q
     from stock_movement
     where tenant_id = ${t} and kind in ('issue', 'return')
