@@ -1,5 +1,10 @@
 import { createDb } from '@latchwork/shared-db';
-import { createMailerFromEnv, createRedisConnection } from '@latchwork/shared-queues';
+import {
+  createMailerFromEnv,
+  createRedisConnection,
+  createReorderQueue,
+  scheduleReorderSync,
+} from '@latchwork/shared-queues';
 import { createLogger, requiredEnv } from '@latchwork/shared-server-kit';
 import { startWorkers, stopWorkers } from './start-worker';
 
@@ -17,6 +22,11 @@ const workers = startWorkers(
   logger,
 );
 logger.info(`worker started: ${workers.map((w) => w.name).join(', ')}`);
+// Nightly reorder: keep the daily sync scheduled and sync the firms' schedulers now.
+const reorderQueue = createReorderQueue(connection);
+void scheduleReorderSync(reorderQueue)
+  .catch((err: Error) => logger.error({ err }, 'could not schedule the nightly reorder'))
+  .finally(() => void reorderQueue.close());
 
 async function shutdown(signal: string) {
   logger.info({ signal }, 'worker stopping; finishing the jobs in hand');

@@ -1,8 +1,15 @@
 import { Worker } from 'bullmq';
 import type { Redis } from 'ioredis';
 import type { Logger } from 'pino';
-import { MAIL_QUEUE, type MailJob } from '@latchwork/shared-queues';
+import {
+  createReorderQueue,
+  MAIL_QUEUE,
+  REORDER_QUEUE,
+  type MailJob,
+  type ReorderJob,
+} from '@latchwork/shared-queues';
 import { mailProcessor, type MailProcessorDeps } from './mail.processor';
+import { reorderProcessor } from './reorder.processor';
 
 /** Starts one BullMQ worker per queue. Returned so tests and main.ts can close them. */
 export function startWorkers(
@@ -16,7 +23,15 @@ export function startWorkers(
     concurrency: 4,
     prefix: options.prefix,
   });
-  for (const worker of [mail]) {
+  // The sync job adds schedulers: the processor needs the queue itself, closed with the worker.
+  const reorderQueue = createReorderQueue(connection, options.prefix);
+  const reorder = new Worker<ReorderJob>(
+    REORDER_QUEUE,
+    reorderProcessor({ db: deps.db, queue: reorderQueue }),
+    { connection, concurrency: 1, prefix: options.prefix },
+  );
+  reorder.on('closed', () => void reorderQueue.close());
+  for (const worker of [mail, reorder]) {
     worker.on('completed', (job) => logger.info({ queue: worker.name, jobId: job.id }, 'job done'));
     worker.on('failed', (job, err) =>
       logger.warn(
@@ -26,7 +41,7 @@ export function startWorkers(
     );
     worker.on('error', (err) => logger.error({ err }, 'worker error'));
   }
-  return [mail];
+  return [mail, reorder];
 }
 
 /**
