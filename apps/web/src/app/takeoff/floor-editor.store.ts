@@ -1,4 +1,13 @@
-import { DestroyRef, Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
+import {
+  DestroyRef,
+  InjectionToken,
+  Injectable,
+  computed,
+  effect,
+  inject,
+  signal,
+  untracked,
+} from '@angular/core';
 import {
   DEFAULT_RATES,
   type Point,
@@ -19,6 +28,12 @@ import { type FirmRates, TakeoffApi } from './takeoff-api';
 export const RECOMPUTE_DELAY_MS = 120;
 
 /**
+ * Where an embedding page keeps its floor between reloads (`key: null`: in memory only). The
+ * Takeoff page leaves it out and keeps one scratch floor per firm.
+ */
+export const FLOOR_STORAGE = new InjectionToken<{ readonly key: string | null }>('FLOOR_STORAGE');
+
+/**
  * The floor being edited and its live takeoff. Edits change `floor` at once; the takeoff is
  * recomputed in the browser with the engine, debounced, outside the input event. While the
  * input is invalid the last good result stays (the page dims it) beside the problems.
@@ -27,12 +42,15 @@ export const RECOMPUTE_DELAY_MS = 120;
 export class FloorEditor {
   private readonly session = inject(Session);
   private readonly api = inject(TakeoffApi);
-  private readonly key = storageKey(this.session.activeTenant()?.id ?? null);
+  private readonly storage = inject(FLOOR_STORAGE, { optional: true });
+  private readonly key = this.storage
+    ? this.storage.key
+    : storageKey(this.session.activeTenant()?.id ?? null);
   private readonly tenantUnits: Units =
     this.session.activeTenant()?.units === 'imperial' ? 'imperial' : 'metric';
 
   private readonly draft = signal<FloorDraft>(
-    loadFloor(localStorage, this.key) ?? exampleFloor(this.tenantUnits),
+    (this.key && loadFloor(localStorage, this.key)) || exampleFloor(this.tenantUnits),
   );
   readonly floor = this.draft.asReadonly();
   readonly units = computed(() => this.draft().units);
@@ -80,6 +98,11 @@ export class FloorEditor {
     }));
   }
 
+  /** Replaces the whole floor (an embedding page opening a saved floor). */
+  load(floor: FloorDraft): void {
+    this.draft.set(floor);
+  }
+
   /** Starts again from the example floor, in the firm's units. */
   newFloor(): void {
     this.draft.set(exampleFloor(this.tenantUnits));
@@ -111,7 +134,7 @@ export class FloorEditor {
   }
 
   private recompute(floor: FloorDraft, rates: TakeoffRates): void {
-    saveFloor(localStorage, this.key, floor);
+    if (this.key) saveFloor(localStorage, this.key, floor);
     const input = takeoffInputOf(floor, rates);
     const found = validateTakeoffInput(input);
     if (found.length) {
