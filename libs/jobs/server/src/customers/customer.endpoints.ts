@@ -28,9 +28,15 @@ import {
   listQuery,
   siteSummary,
 } from './customer.schemas';
-import { auditCustomerChange } from './customer-audit';
-import { checkCustomerKeysFree, isStillReferenced, requireCustomer } from './customer-rules';
-import { firmCurrency } from './firm-currency';
+
+import {
+  auditCustomerChange,
+  checkCustomerKeysFree,
+  firmCurrency,
+  isStillReferenced,
+  requireCustomer,
+} from './customer-rules';
+
 import { listSites } from './site.repository';
 import { siteEndpoints } from './site.endpoints';
 import { importEndpoints } from './import.endpoints';

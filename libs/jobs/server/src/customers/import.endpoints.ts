@@ -1,4 +1,5 @@
 import { sql } from 'kysely';
+import Papa from 'papaparse';
 import { z } from 'zod';
 import { withTenant, type TenantScope, type Tx } from '@latchwork/shared-db';
 import {
@@ -8,12 +9,41 @@ import {
   ValidationError,
   type EndpointDef,
 } from '@latchwork/shared-server-kit';
+import type { CsvRows, RowError } from '@latchwork/jobs-domain';
 import type { JobsDeps } from '../jobs-deps';
 import { applyCustomerChanges, planCustomerImport } from './customer-import';
-import { auditCustomerChange } from './customer-audit';
-import { readCsv } from './csv-rows';
-import { firmCurrency } from './firm-currency';
+import { auditCustomerChange, firmCurrency } from './customer-rules';
 import { applySiteChanges, planSiteImport } from './site-import';
+
+/** What papaparse adds for cells beyond the headings. */
+const EXTRA = '__parsed_extra';
+
+/**
+ * Reads CSV text into heading → cell rows (papaparse, `header: true`, delimiter guessed so
+ * a semicolon file from a European spreadsheet reads too). Rows keep their positions, so
+ * row numbers stay those of the spreadsheet (header = row 1); blank lines are left for the
+ * import rules, which skip them. A row with more cells than headings, or an unclosed quote,
+ * is an error of that row: its cells cannot be trusted to sit under the right headings.
+ */
+function readCsv(csv: string): { rows: CsvRows; errors: RowError[] } {
+  const parsed = Papa.parse<Record<string, string | string[] | undefined>>(csv, {
+    header: true,
+  });
+  const errors: RowError[] = [];
+  for (const e of parsed.errors) {
+    if (e.type === 'Delimiter' || e.code === 'TooFewFields' || e.row === undefined) continue;
+    const message =
+      e.code === 'TooManyFields'
+        ? 'More cells than headings: is a comma missing its quotes?'
+        : `The file cannot be read here: ${e.message}.`;
+    errors.push({ row: e.row + 2, column: '', message });
+  }
+  const rows = parsed.data.map((raw) => {
+    const { [EXTRA]: _extra, ...cells } = raw;
+    return cells as Record<string, string | undefined>;
+  });
+  return { rows, errors };
+}
 
 /**
  * The API's JSON body limit is 1 MB, so the CSV text is capped just under it: thousands of

@@ -9,8 +9,8 @@ import {
 import type { JobsDeps } from '../jobs-deps';
 import { countJobs } from './customer.repository';
 import { customerIdParams, site, siteIdParams, siteInput, sitePatch } from './customer.schemas';
-import { auditCustomerChange } from './customer-audit';
-import { isStillReferenced, requireCustomer } from './customer-rules';
+
+import { auditCustomerChange, isStillReferenced, requireCustomer } from './customer-rules';
 import { deleteSite, findSite, insertSite, updateSite } from './site.repository';
 
 async function requireSite(tx: Tx, scope: TenantScope, siteId: string) {
