@@ -90,12 +90,27 @@ describe('uploading files', () => {
     );
   });
 
+  it('takes a phone photo in HEIC, shown with an icon when no thumbnail can be made', async () => {
+    // An ISO BMFF header with the "heic" brand, as phones write it; sharp's build has no HEVC
+    // decoder, so the file is stored without a thumbnail rather than refused.
+    const heic = Buffer.alloc(64);
+    heic.writeUInt32BE(24, 0);
+    heic.write('ftypheic', 4);
+    heic.write('mif1heic', 16);
+    const res = await upload([{ bytes: heic, name: 'IMG_0042.HEIC' }]);
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body[0]).toMatchObject({ contentType: 'image/heic', hasThumbnail: false });
+  });
+
   it('lists them newest first and stores them under the firm’s prefix', async () => {
     const list = await request(app)
       .get(`/api/v1/files?ownerKind=job&ownerId=${jobId}`)
       .set(as(estimator))
       .expect(200);
+    // The HEIC came in a later request than the four sent together.
+    expect(list.body[0].fileName).toBe('IMG_0042.HEIC');
     expect(list.body.map((f: { fileName: string }) => f.fileName).sort()).toEqual([
+      'IMG_0042.HEIC',
       'areas.csv',
       'bay-1 roller door.jpg',
       'site plan.pdf',

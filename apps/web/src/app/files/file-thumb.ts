@@ -11,12 +11,23 @@ import { MatIcon } from '@angular/material/icon';
 import { FileApi, type StoredFile } from './file-api';
 import { fileIcon } from './file-checks';
 
-/** A file's thumbnail through its short-lived link, or an icon for its kind. */
+/**
+ * A file's thumbnail through its short-lived link, or an icon for its kind (also when the
+ * image cannot be shown: an expired link, or a page policy that refuses the store's origin).
+ */
 @Component({
   selector: 'lw-file-thumb',
   imports: [MatIcon],
   template: `@if (src(); as url) {
-      <img class="thumb" [src]="url" alt="" width="56" height="56" loading="lazy" />
+      <img
+        class="thumb"
+        [src]="url"
+        alt=""
+        width="56"
+        height="56"
+        loading="lazy"
+        (error)="src.set(null)"
+      />
     } @else {
       <mat-icon class="thumb thumb--icon" aria-hidden="true">{{ icon() }}</mat-icon>
     }`,
