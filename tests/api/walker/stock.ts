@@ -141,12 +141,18 @@ async function prepareStock({ db, tenantA, ownerA }: WalkerSetup) {
 
 type Params = Record<string, string>;
 
+/** A one-product catalogue CSV with a fresh SKU. */
+const walkerCsv = () =>
+  `sku,name,kind,colour,pack_size,cost,price\r\n${stockTestName('WCSV')},Walker tile,tile,Amber,24,2.35,3.90\r\n`;
+
 export const stockWalk: WalkerFixture = {
   prepare: prepareStock,
   bodies: {
     'POST /api/v1/stock/products': () => productBody('tile'),
     'PUT /api/v1/stock/products/:productId': (_f, p: Params) =>
       productBody('tile', { sku: p['stockProductSku'] }),
+    'POST /api/v1/stock/products/import/preview': () => ({ csv: walkerCsv() }),
+    'POST /api/v1/stock/products/import': () => ({ csv: walkerCsv() }),
     'POST /api/v1/stock/suppliers': () => ({ name: stockTestName('Walker supplier') }),
     'PUT /api/v1/stock/suppliers/:supplierId': (_f, p: Params) => ({
       name: p['stockSupplierName'],
