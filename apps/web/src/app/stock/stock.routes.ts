@@ -62,4 +62,35 @@ export const STOCK_ROUTES: Routes = [
     title: 'Job materials · Latchwork',
     loadComponent: () => import('./job-stock-page').then((m) => m.JobStockPage),
   },
+  {
+    path: 'counts',
+    title: 'Stock counts · Latchwork',
+    loadComponent: () => import('./counts/count-list-page').then((m) => m.CountListPage),
+  },
+  {
+    path: 'counts/:countId/sheet',
+    title: 'Count sheet · Latchwork',
+    ...writers,
+    loadComponent: () => import('./counts/count-sheet-page').then((m) => m.CountSheetPage),
+  },
+  {
+    path: 'counts/:countId',
+    title: 'Count review · Latchwork',
+    loadComponent: () => import('./counts/count-review-page').then((m) => m.CountReviewPage),
+  },
+  {
+    path: 'reorder',
+    title: 'Reorder · Latchwork',
+    loadComponent: () => import('./purchasing/reorder-page').then((m) => m.ReorderPage),
+  },
+  {
+    path: 'purchase-orders',
+    title: 'Purchase orders · Latchwork',
+    loadComponent: () => import('./purchasing/po-list-page').then((m) => m.PoListPage),
+  },
+  {
+    path: 'purchase-orders/:purchaseOrderId',
+    title: 'Purchase order · Latchwork',
+    loadComponent: () => import('./purchasing/po-page').then((m) => m.PoPage),
+  },
 ];
