@@ -5,7 +5,6 @@ import { MatButton } from '@angular/material/button';
 import { MatFormField, MatLabel, MatPrefix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
-import { MatOption, MatSelect } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import {
   catchError,
@@ -20,12 +19,14 @@ import { combineLatest } from 'rxjs';
 import { errorText } from '../api/api-problems';
 import { Session } from '../session/session.store';
 import { Product, StockApi } from './stock-api';
+import { KindFilter } from './kind-filter';
 import { KIND_LABELS, moneyText, packsOf } from './stock-format';
 
 /** The catalogue: search by SKU or name, filter by kind, with stock figures; CSV in and out. */
 @Component({
   selector: 'lw-product-list-page',
   imports: [
+    KindFilter,
     ReactiveFormsModule,
     RouterLink,
     MatButton,
@@ -33,9 +34,7 @@ import { KIND_LABELS, moneyText, packsOf } from './stock-format';
     MatIcon,
     MatInput,
     MatLabel,
-    MatOption,
     MatPrefix,
-    MatSelect,
   ],
   templateUrl: './product-list-page.html',
   styleUrl: './stock-page.scss',
@@ -46,7 +45,6 @@ export class ProductListPage {
   private readonly session = inject(Session);
   protected readonly canWrite = computed(() => this.session.can('stock:write'));
   protected readonly currency = computed(() => this.session.activeTenant()?.currency ?? 'GBP');
-  protected readonly kinds = Object.entries(KIND_LABELS);
   protected readonly kindLabel = KIND_LABELS;
   protected readonly search = new FormControl('', { nonNullable: true });
   protected readonly kind = signal('');

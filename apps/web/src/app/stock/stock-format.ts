@@ -1,4 +1,5 @@
 import { formatMoney, formatPacks, parseMoney, parseQuantity } from '@latchwork/stock-domain';
+import { minorDigitsOf } from '../customers/money-text';
 
 /** Labels of the product kinds, in the catalogue's order. */
 export const KIND_LABELS: Readonly<Partial<Record<string, string>>> = {
@@ -28,17 +29,8 @@ export const MOVEMENT_LABELS: Readonly<Record<string, string>> = {
   write_off: 'Write-off',
 };
 
-/** Minor digits of the firm's currency from the browser's ICU data (2 when unknown). */
-export function currencyDigits(currency: string): number {
-  try {
-    return (
-      new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions()
-        .maximumFractionDigits ?? 2
-    );
-  } catch {
-    return 2;
-  }
-}
+/** Minor digits of the firm's currency (shared with the customer pages). */
+export const currencyDigits = minorDigitsOf;
 
 /** Minor units as money ("£43.00"): the decimal text goes to Intl, never a float division. */
 export function moneyText(minor: number | null, currency: string): string {

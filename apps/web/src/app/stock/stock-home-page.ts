@@ -9,6 +9,7 @@ import { catchError, of, switchMap, tap } from 'rxjs';
 import { errorText } from '../api/api-problems';
 import { Session } from '../session/session.store';
 import { Balance, StockApi } from './stock-api';
+import { KindFilter } from './kind-filter';
 import { KIND_LABELS } from './stock-format';
 
 /**
@@ -17,7 +18,16 @@ import { KIND_LABELS } from './stock-format';
  */
 @Component({
   selector: 'lw-stock-home-page',
-  imports: [RouterLink, MatButton, MatFormField, MatIcon, MatLabel, MatOption, MatSelect],
+  imports: [
+    KindFilter,
+    RouterLink,
+    MatButton,
+    MatFormField,
+    MatIcon,
+    MatLabel,
+    MatOption,
+    MatSelect,
+  ],
   templateUrl: './stock-home-page.html',
   styleUrl: './stock-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -26,7 +36,6 @@ export class StockHomePage {
   private readonly api = inject(StockApi);
   private readonly session = inject(Session);
   protected readonly canWrite = computed(() => this.session.can('stock:write'));
-  protected readonly kinds = Object.entries(KIND_LABELS);
   protected readonly kindLabel = KIND_LABELS;
   protected readonly location = signal('');
   protected readonly kind = signal('');
