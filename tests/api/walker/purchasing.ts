@@ -2,13 +2,11 @@ import type { Express } from 'express';
 import type { Kysely } from 'kysely';
 import request from 'supertest';
 import { withTenant, type Database, type Role, type Tx } from '@latchwork/shared-db';
-import { postMovements } from '@latchwork/stock-server';
+import { createPurchaseOrder, postMovements, startCount } from '@latchwork/stock-server';
 import type { WalkerFixture } from './fixture';
 import { newFirm } from './jobs';
 import { stockAs } from './stock';
 import { sessionFor, type TestSession } from '../sessions';
-import { startCount } from '../../../libs/stock/server/src/counts/count-start';
-import { createPurchaseOrder } from '../../../libs/stock/server/src/purchasing/po.repository';
 
 const unique = () => `${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`;
 

@@ -15,6 +15,8 @@ import { controlSettingsEndpoints } from './reorder/control-settings';
 export type { StockDeps } from './stock-deps';
 export * from './ledger';
 export { runReorder, type ReorderResult } from './reorder/reorder-run';
+export * from './counts';
+export * from './purchasing';
 
 /** Catalogue, locations and batches, the stock ledger, reservations, counts and purchasing. */
 export function stockEndpoints(deps: StockDeps): EndpointDef[] {
