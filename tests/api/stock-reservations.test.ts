@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { withTenant } from '@latchwork/shared-db';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApi } from './api-harness';
 import { demoIds, sessionFor, type TestSession } from './sessions';
@@ -128,5 +129,54 @@ describe('reservations', () => {
       costMinor: 600,
     });
     expect(materials.body.estimateSource).toBe('none');
+  });
+
+  it('estimates from the latest takeoff of each area and sets issues against it', async () => {
+    const jobId = await makeStockJob(deps.db, firm);
+    await withTenant(deps.db, { tenantId: firm }, async (tx) => {
+      const area = await tx
+        .insertInto('surveyArea')
+        .values({ tenantId: firm, jobId, name: 'Garage' })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      const summary = (kits: number, tiles: number) =>
+        JSON.stringify({
+          tiles: { byColour: [{ colour: 'Graphite', toOrder: tiles }] },
+          materials: { adhesive: { kits } },
+        });
+      for (const [version, kits, tiles] of [
+        [1, 9, 999],
+        [2, 2, 48],
+      ])
+        await tx
+          .insertInto('takeoffVersion')
+          .values({
+            tenantId: firm,
+            areaId: area.id,
+            version,
+            input: '{}',
+            rates: '{}',
+            summary: summary(kits, tiles),
+          })
+          .execute();
+    });
+    const { productId } = await stocked('tile', [{ quantity: 96 }]);
+    await post('/stock/movements', {
+      kind: 'issue',
+      productId,
+      fromLocationId: shelf,
+      batchId: (await get(`/stock/balances?productId=${productId}`)).body[0].batchId,
+      quantity: 50,
+      jobId,
+    }).expect(201);
+    const m = await get(`/stock/jobs/${jobId}/materials`).expect(200);
+    expect(m.body.estimateSource).toBe('takeoff');
+    // Only version 2 counts: 48 Graphite tiles and 2 kits estimated; 50 tiles issued.
+    expect(m.body.lines).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({ kind: 'tile', colour: 'Graphite', estimated: 48, issued: 50 }),
+        expect.objectContaining({ kind: 'adhesive', estimated: 2, issued: 0 }),
+      ]),
+    );
   });
 });
