@@ -64,15 +64,19 @@ export async function moveJob(
       movedAt,
     })
     .execute();
-  const because = check.reason ? `: ${check.reason}` : '';
   await recordJobEvent(tx, scope, {
     jobId,
     kind: 'stage-move',
-    summary: `Moved from ${STAGE_LABELS[from]} to ${STAGE_LABELS[move.to]}${because}`,
+    summary: moveSummary(from, move.to, check.reason),
     detail: { from, to: move.to, reason: check.reason, kind: check.kind, rule: move.rule ?? null },
     actorUserId: move.rule ? null : viewer.userId,
   });
   return { from, to: move.to, reason: check.reason, movedAt };
+}
+
+/** The timeline's sentence for a stage move. */
+function moveSummary(from: Stage, to: Stage, reason: string | null): string {
+  return `Moved from ${STAGE_LABELS[from]} to ${STAGE_LABELS[to]}${reason ? `: ${reason}` : ''}`;
 }
 
 /** The stage a job on hold was held from, read from the latest history lines. */

@@ -20,15 +20,32 @@ import {
 } from './job-query';
 import type { BoardQuery, JobFilter, ListQuery } from './job.schemas';
 
-/** One page of the job table, sorted on the server, with the number of rows in all. */
+/**
+ * One page of the job table, sorted on the server, with the number of rows in all. The page's
+ * ids are found first on the narrow job rows (joining a customer or owner only to sort by its
+ * name), then only those rows are dressed: a deep page then sorts ids, not whole rows.
+ */
 export async function listJobs(tx: Tx, scope: TenantScope, viewer: JobViewer, query: ListQuery) {
   const total = await filteredJobs(tx, scope, viewer, query)
     .select((eb) => eb.fn.countAll<string>().as('n'))
     .executeTakeFirstOrThrow();
-  const rows = await listedJobs(tx, scope, viewer, query)
-    .orderBy(orderFor(query.sort, query.dir))
-    .limit(query.pageSize)
-    .offset((query.page - 1) * query.pageSize)
+  const order = orderFor(query.sort, query.dir);
+  const size = query.pageSize;
+  const skip = (query.page - 1) * size;
+  const base = filteredJobs(tx, scope, viewer, query).select('j.id');
+  const page =
+    query.sort === 'customer'
+      ? base.innerJoin('customer as c', (join) =>
+          join.onRef('c.id', '=', 'j.customerId').onRef('c.tenantId', '=', 'j.tenantId'),
+        )
+      : query.sort === 'owner'
+        ? base.leftJoin('appUser as o', 'o.id', 'j.ownerUserId')
+        : base;
+  const ids = (await page.orderBy(order).limit(size).offset(skip).execute()).map((r) => r.id);
+  if (!ids.length) return { items: [], total: Number(total.n) };
+  const rows = await listedJobs(tx, scope, viewer, { dateField: query.dateField })
+    .where('j.id', 'in', ids)
+    .orderBy(order)
     .execute();
   return { items: rows.map(listedJob), total: Number(total.n) };
 }

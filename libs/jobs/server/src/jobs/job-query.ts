@@ -57,24 +57,15 @@ export function filteredJobs(tx: Tx, scope: TenantScope, viewer: JobViewer, f: J
   if (f.maxValue !== undefined) q = q.where('j.valueEstimateMinor', '<=', String(f.maxValue));
   if (f.q) {
     const pattern = containsPattern(f.q);
-    // The same expressions as the trigram indexes on job and customer, so both are used.
-    q = q.where((eb) =>
-      eb.or([
-        eb(sql`j.reference || ' ' || j.title`, 'ilike', pattern),
-        eb(
-          'j.customerId',
-          'in',
-          eb
-            .selectFrom('customer as sc')
-            .select('sc.id')
-            .where('sc.tenantId', '=', scope.tenantId)
-            .where(
-              sql`sc.name || ' ' || coalesce(sc.email::text, '') || ' ' || coalesce(sc.postcode, '')`,
-              'ilike',
-              pattern,
-            ),
-        ),
-      ]),
+    // Through the search functions (see migrations 0111 and 0121): under row-level security
+    // only they can use the trigram indexes. One id list, so the planner can look jobs up by id.
+    q = q.where(
+      sql<boolean>`j.id in (
+        select job_search_ids(${pattern})
+        union
+        select cj.id from job cj
+        where cj.tenant_id = ${scope.tenantId}
+          and cj.customer_id in (select customer_search_ids(${pattern})))`,
     );
   }
   return q;
