@@ -231,7 +231,9 @@ describe('the route walker', () => {
       `route walker: ${routesOf(app).length} routes × ${2 + actorsA.length} actors = ${tried} calls, ${unexpected.length} unexpected`,
     );
     expect(unexpected).toEqual([]);
-  });
+    // Over a hundred routes × seven actors, each call with a fresh session: well past the
+    // default per-test limit on a busy two-core machine.
+  }, 240_000);
 
   it('covers every role', () => {
     expect(actorsA.map((a) => a.role).sort()).toEqual([...ROLES].sort());
