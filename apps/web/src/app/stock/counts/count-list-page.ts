@@ -7,10 +7,10 @@ import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, map, of, startWith, Subject, switchMap } from 'rxjs';
+import { catchError, of, startWith, Subject, switchMap } from 'rxjs';
 import { showProblems } from '../../api/api-problems';
 import { Session } from '../../session/session.store';
-import { StockApi, type Product, type StockLocation } from '../stock-api';
+import { stockChoices } from '../purchasing/stock-choices';
 import { moneyText } from '../stock-format';
 import { CountsApi, type CountSummary, type VarianceGroup } from './counts-api';
 
@@ -42,7 +42,6 @@ const STATUS: Record<string, string> = {
 })
 export class CountListPage {
   private readonly api = inject(CountsApi);
-  private readonly stock = inject(StockApi);
   private readonly router = inject(Router);
   private readonly session = inject(Session);
   protected readonly canWrite = computed(() => this.session.can('stock:write'));
@@ -58,17 +57,9 @@ export class CountListPage {
     ),
     { initialValue: [] as CountSummary[] },
   );
-  protected readonly locations = toSignal(
-    this.stock.locations().pipe(catchError(() => of([] as StockLocation[]))),
-    { initialValue: [] as StockLocation[] },
-  );
-  protected readonly products = toSignal(
-    this.stock.products({ active: 'true' }).pipe(
-      map((page) => page.items),
-      catchError(() => of([] as Product[])),
-    ),
-    { initialValue: [] as Product[] },
-  );
+  private readonly choices = stockChoices();
+  protected readonly locations = this.choices.locations;
+  protected readonly products = this.choices.products;
   protected readonly report = signal<VarianceGroup[]>([]);
   protected readonly form = new FormGroup({
     locationId: new FormControl('', { nonNullable: true, validators: Validators.required }),

@@ -30,7 +30,7 @@ type Row = FormGroup<{ packs: FormControl<string>; units: FormControl<string> }>
     MatLabel,
   ],
   templateUrl: './count-sheet-page.html',
-  styleUrl: './count-sheet-page.scss',
+  styleUrls: ['../stock-page.scss', './count-sheet-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CountSheetPage {

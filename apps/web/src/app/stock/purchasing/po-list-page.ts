@@ -7,11 +7,12 @@ import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, map, of, startWith, Subject, switchMap } from 'rxjs';
+import { catchError, of, startWith, Subject, switchMap } from 'rxjs';
 import { showProblems } from '../../api/api-problems';
 import { Session } from '../../session/session.store';
-import { StockApi, type Product, type StockLocation, type Supplier } from '../stock-api';
+import { StockApi, type Supplier } from '../stock-api';
 import { moneyInput } from '../stock-format';
+import { stockChoices } from './stock-choices';
 import { ORDER_STATUS, PurchasingApi, type OrderSummary } from './purchasing-api';
 
 const WHOLE = Validators.pattern(/^\d{0,9}$/);
@@ -74,17 +75,9 @@ export class PoListPage {
     this.stock.suppliers().pipe(catchError(() => of([] as Supplier[]))),
     { initialValue: [] as Supplier[] },
   );
-  protected readonly locations = toSignal(
-    this.stock.locations().pipe(catchError(() => of([] as StockLocation[]))),
-    { initialValue: [] as StockLocation[] },
-  );
-  protected readonly products = toSignal(
-    this.stock.products({ active: 'true' }).pipe(
-      map((page) => page.items),
-      catchError(() => of([] as Product[])),
-    ),
-    { initialValue: [] as Product[] },
-  );
+  private readonly choices = stockChoices();
+  protected readonly locations = this.choices.locations;
+  protected readonly products = this.choices.products;
   protected readonly form = new FormGroup({
     supplierId: new FormControl('', { nonNullable: true, validators: Validators.required }),
     deliveryLocationId: new FormControl('', { nonNullable: true }),
