@@ -110,6 +110,9 @@ describe('ReadingForm', () => {
     await fixture.whenStable();
     await new Promise((r) => setTimeout(r));
     expect(seen).toEqual([stored]);
+    // Ready for the next reading: the emptied value is not flagged as a mistake.
+    expect((field('Value').querySelector('input') as HTMLInputElement).value).toBe('');
+    expect(text('mat-error')).toBe('');
   });
 
   it('puts the API’s field problem under the field and refuses an empty value', async () => {

@@ -6,9 +6,15 @@ import {
   input,
   output,
   signal,
+  viewChild,
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormGroupDirective,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
@@ -75,6 +81,8 @@ export class ReadingForm {
     EmissionUnit,
     string,
   ][];
+  /** The form element's directive: resetting through it also clears "submitted". */
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly sending = signal(false);
   protected readonly problem = signal<string | null>(null);
 
@@ -134,8 +142,8 @@ export class ReadingForm {
         takenAt: new Date(v.takenAt).toISOString(),
       });
       this.recorded.emit(saved);
-      this.form.patchValue({ value: null, location: '' });
-      this.form.controls.value.markAsUntouched();
+      // Ready for the next reading of the same kind; no "enter the reading" on the empty field.
+      this.formDirective().resetForm({ ...v, value: null, location: '' });
     } catch (err: unknown) {
       this.problem.set(showProblems(this.form, err));
     } finally {

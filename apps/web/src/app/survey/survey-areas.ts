@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
@@ -44,6 +44,8 @@ export class SurveyAreas {
     nonNullable: true,
     validators: [Validators.required, Validators.maxLength(120)],
   });
+  // A group for the form element: (ngSubmit) needs a form directive to come from.
+  protected readonly form = new FormGroup({ name: this.name });
   protected readonly adding = signal(false);
   protected readonly problem = signal<string | null>(null);
   /** Versions shown per area id (loaded when asked for). */

@@ -41,6 +41,9 @@ import type { SurveyWarning } from '@latchwork/jobs-domain';
       background: var(--mat-sys-error-container);
       color: var(--mat-sys-on-error-container);
     }
+    .wl__icon {
+      flex: none;
+    }
     .wl--compact {
       padding: 8px 12px;
     }
