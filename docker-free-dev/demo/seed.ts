@@ -6,9 +6,10 @@ import { customersDemo } from './customers-demo';
 import { jobsDemo } from './jobs-demo';
 import { surveyDemo } from './survey-demo';
 import { stockDemo } from './stock-demo';
+import { purchasingDemo } from './purchasing-demo';
 
 /** Each feature's demo data, in order: later steps read what earlier ones wrote. */
-const FEATURE_STEPS: DemoStep[] = [customersDemo, jobsDemo, surveyDemo, stockDemo];
+const FEATURE_STEPS: DemoStep[] = [customersDemo, jobsDemo, surveyDemo, stockDemo, purchasingDemo];
 
 /**
  * Loads the demo scenario into an empty database: firms and people, then each feature's demo
