@@ -7,8 +7,12 @@ import { createProxyMiddleware } from 'http-proxy-middleware';
 import path from 'node:path';
 import { existsSync } from 'node:fs';
 
-/** @param {{ port: number, webRoot: string, apiUrls: string[] }} options */
-export function start({ port, webRoot, apiUrls }) {
+/**
+ * @param {{ port: number, webRoot: string, apiUrls: string[], fileOrigins?: string[] }} options
+ * `fileOrigins`: where the API's presigned file links point (the object store), so that
+ * thumbnails and photos may be shown in the page.
+ */
+export function start({ port, webRoot, apiUrls, fileOrigins = [] }) {
   if (!existsSync(path.join(webRoot, 'index.html')))
     throw new Error(`No built web app in ${webRoot}; run the build first`);
   const app = express();
@@ -33,7 +37,7 @@ export function start({ port, webRoot, apiUrls }) {
           defaultSrc: ["'self'"],
           // Angular Material sets inline style attributes; scripts stay same-origin only.
           styleSrc: ["'self'", "'unsafe-inline'"],
-          imgSrc: ["'self'", 'data:', 'blob:'],
+          imgSrc: ["'self'", 'data:', 'blob:', ...fileOrigins],
           fontSrc: ["'self'"],
           connectSrc: ["'self'"],
           formAction: ["'self'", 'http://127.0.0.1:*'],
@@ -58,7 +62,10 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     ',',
   );
   const webRoot = path.resolve(process.env.WEB_ROOT ?? 'dist/apps/web/browser');
-  const server = await start({ port, webRoot, apiUrls });
+  const fileOrigins = process.env.S3_ENDPOINT
+    ? [`http://${process.env.S3_ENDPOINT}:${process.env.S3_PORT ?? 9000}`]
+    : [];
+  const server = await start({ port, webRoot, apiUrls, fileOrigins });
   console.log(`gateway listening on http://127.0.0.1:${port} → ${apiUrls.join(', ')}`);
   const stop = () => server.close(() => process.exit(0));
   process.once('SIGTERM', stop);

@@ -14,6 +14,7 @@ const STATUS_BY_CODE: Record<string, number> = {
   not_found: 404,
   conflict: 409,
   payload_too_large: 413,
+  unsupported_media_type: 415,
   too_many_requests: 429,
 };
 

@@ -17,7 +17,7 @@ import type { Request } from 'express';
 import type { JobsDeps } from '../jobs-deps';
 import { recordJobEvent } from '../jobs/job-events';
 import { assertOwnerVisible, OWNER_KINDS, type FileOwner } from './file-owners';
-import { MAX_FILE_BYTES, readUpload, UploadRefused } from './file-upload';
+import { MAX_FILE_BYTES, readUpload } from './file-upload';
 import { storeUploads } from './file-intake';
 import { LINK_TTL_SECONDS, presignedLink, removeObjects } from './file-storage';
 import { deleteFileRows, findVisibleFile, insertFile, listFiles } from './file.repository';
@@ -62,56 +62,47 @@ export function fileEndpoints(deps: JobsDeps): EndpointDef[] {
       async handle({ req, res }) {
         const scope = scopeOf(req);
         const actor = actorOf(req);
+        const { files, fields } = await readUpload(req, res);
+        const parsed = ownerQuery.safeParse(fields);
+        if (!parsed.success) {
+          const message =
+            'Say what the files belong to: ownerKind (job, site or customer) and ownerId.';
+          throw new ValidationError(message, [{ path: 'ownerKind', message }]);
+        }
+        const owner: FileOwner = { kind: parsed.data.ownerKind, id: parsed.data.ownerId };
+        // Check the owner before storing anything, so a bad id leaves no orphan objects.
+        await withTenant(deps.db, scope, (tx) => assertOwnerVisible(tx, scope, actor, owner));
+        const stored = await storeUploads(deps.objectStore, scope, files);
         try {
-          const { files, fields } = await readUpload(req, res);
-          const parsed = ownerQuery.safeParse(fields);
-          if (!parsed.success) {
-            const message =
-              'Say what the files belong to: ownerKind (job, site or customer) and ownerId.';
-            throw new ValidationError(message, [{ path: 'ownerKind', message }]);
-          }
-          const owner: FileOwner = { kind: parsed.data.ownerKind, id: parsed.data.ownerId };
-          // Check the owner before storing anything, so a bad id leaves no orphan objects.
-          await withTenant(deps.db, scope, (tx) => assertOwnerVisible(tx, scope, actor, owner));
-          const stored = await storeUploads(deps.objectStore, scope, files);
-          try {
-            return await withTenant(deps.db, scope, async (tx) => {
-              await assertOwnerVisible(tx, scope, actor, owner);
-              const saved = [];
-              for (const file of stored) {
-                const row = await insertFile(tx, scope, owner, file, actor.userId);
-                saved.push(row);
-                const detail = {
-                  fileId: row.id,
-                  fileName: row.fileName,
-                  ownerKind: owner.kind,
-                  ownerId: owner.id,
-                };
-                await auditFile(tx, scope, req, 'file-uploaded', detail);
-                if (owner.kind === 'job')
-                  await recordJobEvent(tx, scope, {
-                    jobId: owner.id,
-                    kind: 'file-uploaded',
-                    summary: `File uploaded: ${row.fileName} (${megabytes(row.sizeBytes)})`,
-                    detail,
-                    actorUserId: actor.userId,
-                  });
-              }
-              return saved;
-            });
-          } catch (err) {
-            await removeObjects(
-              deps.objectStore,
-              stored.flatMap((f) => [f.objectKey, ...(f.thumbnail ? [f.thumbnail.objectKey] : [])]),
-            );
-            throw err;
-          }
+          return await withTenant(deps.db, scope, async (tx) => {
+            await assertOwnerVisible(tx, scope, actor, owner);
+            const saved = [];
+            for (const file of stored) {
+              const row = await insertFile(tx, scope, owner, file, actor.userId);
+              saved.push(row);
+              const detail = {
+                fileId: row.id,
+                fileName: row.fileName,
+                ownerKind: owner.kind,
+                ownerId: owner.id,
+              };
+              await auditFile(tx, scope, req, 'file-uploaded', detail);
+              if (owner.kind === 'job')
+                await recordJobEvent(tx, scope, {
+                  jobId: owner.id,
+                  kind: 'file-uploaded',
+                  summary: `File uploaded: ${row.fileName} (${megabytes(row.sizeBytes)})`,
+                  detail,
+                  actorUserId: actor.userId,
+                });
+            }
+            return saved;
+          });
         } catch (err) {
-          // 415 has no code in the shared error map: answer it here in the one error shape.
-          if (err instanceof UploadRefused && err.status === 415) {
-            res.status(415);
-            return { error: { code: err.code, message: err.message, details: err.details } };
-          }
+          await removeObjects(
+            deps.objectStore,
+            stored.flatMap((f) => [f.objectKey, ...(f.thumbnail ? [f.thumbnail.objectKey] : [])]),
+          );
           throw err;
         }
       },
