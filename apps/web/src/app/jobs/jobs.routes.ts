@@ -1,4 +1,19 @@
 import { Routes } from '@angular/router';
 
-/** The pages under /jobs, each lazy. Filled as the pages land. */
-export const JOB_ROUTES: Routes = [];
+/** The pages under /jobs, each lazy. The parent route already asks for `jobs:read`. */
+export const JOB_ROUTES: Routes = [
+  {
+    path: '',
+    loadComponent: () => import('./job-board-page').then((m) => m.JobBoardPage),
+  },
+  {
+    path: 'table',
+    title: 'Jobs table · Latchwork',
+    loadComponent: () => import('./job-table-page').then((m) => m.JobTablePage),
+  },
+  {
+    path: ':jobId',
+    title: 'Job · Latchwork',
+    loadComponent: () => import('./job-page').then((m) => m.JobPage),
+  },
+];
