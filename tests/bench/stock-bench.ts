@@ -3,6 +3,7 @@
  *
  *   eval "$(node tests/support/test-env.mjs)"
  *   npx tsx --tsconfig tsconfig.base.json tests/bench/stock-bench.ts [--movements 1000000]
+ *   npx tsx --tsconfig tsconfig.base.json tests/bench/stock-bench.ts --delete-leftovers
  *
  * A generated firm: 1,000 products (half of them tiles in 2 batches each), 20 locations, 50
  * jobs and 1,000,000 ledger movements over the last year — 20,000 opening receipts, then
@@ -173,32 +174,38 @@ async function seedLedger(db: Kysely<Database>, movements: number) {
   };
 }
 
-/** Removes the generated firm, children first. */
+/**
+ * Removes the generated firm: every table with a tenant_id (other features' too, such as rows
+ * their triggers wrote), each in its own transaction — a later table's foreign-key checks then
+ * skip rows an earlier one removed instead of wading through a million dead index entries — in
+ * passes until nothing refers to the firm any more.
+ */
 async function deleteFirm(db: Kysely<Database>, tenantId: string) {
-  const tables = [
-    'goods_receipt_line',
-    'goods_receipt',
-    'purchase_order_line',
-    'purchase_order',
-    'purchase_order_counter',
-    'stock_control_setting',
+  const { rows } = await sql<{ tableName: string }>`
+    select c.table_name from information_schema.columns c
+    join information_schema.tables t on t.table_schema = c.table_schema
+      and t.table_name = c.table_name and t.table_type = 'BASE TABLE'
+    where c.table_schema = 'public' and c.column_name = 'tenant_id'`.execute(db);
+  // Children first where we know them; anything else finds its place in a later pass.
+  const first = ['goods_receipt_line', 'stock_count_line', 'purchase_order_line', 'reservation'];
+  let left = [
+    ...first,
     'stock_balance',
     'product_cost_state',
     'stock_movement',
-    'reservation',
-    'stock_batch',
-    'product',
-    'stock_location',
-    'supplier',
-    'job',
-    'customer',
-    'email_log',
-    'audit_log',
-  ];
-  await withTenant(db, { tenantId }, async (tx) => {
-    for (const table of tables)
-      await sql`delete from ${sql.table(table)} where tenant_id = ${tenantId}`.execute(tx);
-  });
+    ...rows.map((r) => r.tableName),
+  ].filter((t, i, all) => all.indexOf(t) === i && rows.some((r) => r.tableName === t));
+  for (let pass = 0; pass < 6 && left.length > 0; pass++) {
+    const blocked: string[] = [];
+    for (const table of left)
+      await withTenant(db, { tenantId }, (tx) =>
+        sql`delete from ${sql.table(table)} where tenant_id = ${tenantId}`.execute(tx),
+      ).catch((err: { code?: string }) => {
+        if (err.code !== '23503') throw err;
+        blocked.push(table);
+      });
+    left = blocked;
+  }
   await db.deleteFrom('tenant').where('id', '=', tenantId).execute();
 }
 
@@ -295,7 +302,20 @@ async function main() {
   }
 }
 
-void main().catch((err) => {
+/** `--delete-leftovers`: removes firms an interrupted run of this benchmark left behind. */
+async function deleteLeftovers() {
+  const owner: Kysely<Database> = createDb({ connectionString: env('DATABASE_OWNER_URL'), max: 2 });
+  const firms = await owner.selectFrom('tenant').select(['id', 'slug', 'name']).execute();
+  for (const f of firms.filter(
+    (t) => /^bench-[a-z0-9]+$/.test(t.slug) && t.name === `Bench Flooring ${t.slug}`,
+  )) {
+    await deleteFirm(owner, f.id);
+    console.log(`deleted ${f.slug}`);
+  }
+  await owner.destroy();
+}
+
+void (process.argv.includes('--delete-leftovers') ? deleteLeftovers() : main()).catch((err) => {
   console.error(err);
   process.exitCode = 1;
 });
