@@ -69,6 +69,47 @@ async function columnCards(
   return { cards: rows.slice(0, limit).map(listedJob), more: rows.length > limit };
 }
 
+/**
+ * The first cards of several columns in one statement: for each stage, a lateral subquery
+ * walks the board index from the newest move and stops at `limit` (one round trip instead of
+ * one per column).
+ */
+async function firstCards(
+  tx: Tx,
+  scope: TenantScope,
+  viewer: JobViewer,
+  filter: BoardQuery,
+  stages: readonly Stage[],
+): Promise<Map<Stage, ListedJob[]>> {
+  const byStage = new Map<Stage, ListedJob[]>();
+  if (!stages.length) return byStage;
+  const rows = await tx
+    .selectFrom(
+      sql<{ stage: string }>`(select unnest(${sql.val([...stages])}::text[]) as stage)`.as(
+        'wanted',
+      ),
+    )
+    .innerJoinLateral(
+      () =>
+        listedJobs(tx, scope, viewer, filter)
+          .where(sql<boolean>`j.stage = wanted.stage`)
+          .orderBy('j.stageChangedAt', 'desc')
+          .orderBy('j.number', 'desc')
+          .limit(filter.limit)
+          .as('c'),
+      (join) => join.onTrue(),
+    )
+    .selectAll('c')
+    // Grouped by stage below; within a stage, the board's order.
+    .orderBy(sql`c.stage_changed_at desc, c.number desc`)
+    .execute();
+  for (const row of rows) {
+    const job = listedJob(row);
+    byStage.set(job.stage, [...(byStage.get(job.stage) ?? []), job]);
+  }
+  return byStage;
+}
+
 interface Totals {
   count: number;
   valueMinor: number;
@@ -120,14 +161,24 @@ export async function board(tx: Tx, scope: TenantScope, viewer: JobViewer, query
     unvalued: a.unvalued + b.unvalued,
   });
   const stages = query.stage?.length ? STAGES.filter((s) => query.stage?.includes(s)) : STAGES;
-  const columns = [];
-  for (const stage of stages) {
+  const cards = await firstCards(
+    tx,
+    scope,
+    viewer,
+    query,
+    stages.filter((s) => byStage.has(s)),
+  );
+  const columns = stages.map((stage) => {
     const totals = byStage.get(stage) ?? zero;
-    const cards = totals.count
-      ? await columnCards(tx, scope, viewer, query, stage, 0, query.limit)
-      : { cards: [], more: false };
-    columns.push({ stage, label: STAGE_LABELS[stage], ...totals, ...cards });
-  }
+    const shown = cards.get(stage) ?? [];
+    return {
+      stage,
+      label: STAGE_LABELS[stage],
+      ...totals,
+      cards: shown,
+      more: totals.count > shown.length,
+    };
+  });
   const all = [...byStage.values()].reduce(add, zero);
   const openPipeline = OPEN_PIPELINE_STAGES.map((s) => byStage.get(s) ?? zero).reduce(add, zero);
   return { columns, openPipeline, all };
