@@ -10,7 +10,17 @@ export type AuditAction =
   | 'member-invited'
   | 'member-role-changed'
   | 'member-removed'
-  | 'settings-changed';
+  | 'settings-changed'
+  | 'customer-created'
+  | 'customer-updated'
+  | 'customer-deleted'
+  | 'site-created'
+  | 'site-updated'
+  | 'site-deleted'
+  | 'customers-imported'
+  | 'file-uploaded'
+  | 'file-deleted'
+  | 'stock-expired-issued';
 
 export interface AuditInput {
   userId: string | null;

@@ -1,4 +1,4 @@
-import { type TenantScope, type Tx } from '@latchwork/shared-db';
+import { recordAudit, type TenantScope, type Tx } from '@latchwork/shared-db';
 import { actorOf, endpoint } from '@latchwork/shared-server-kit';
 import type { Request } from 'express';
 import type { StockDeps } from '../stock-deps';
@@ -123,17 +123,13 @@ export function movementEndpoints(deps: StockDeps) {
               oc.column('tenantId').doUpdateSet({ ...body, updatedAt: new Date() }),
             )
             .execute();
-          await tx
-            .insertInto('auditLog')
-            .values({
-              tenantId: scope.tenantId,
-              userId: actorOf(req).userId,
-              action: 'settings-changed',
-              subject: 'stock settings',
-              detail: { before, after: body },
-              ipAddress: req.ip ?? null,
-            })
-            .execute();
+          await recordAudit(tx, scope, {
+            userId: actorOf(req).userId,
+            action: 'settings-changed',
+            subject: 'stock settings',
+            detail: { before, after: body },
+            ipAddress: req.ip ?? null,
+          });
           return stockSettings(tx, scope);
         }),
     }),

@@ -5,7 +5,7 @@
  * two people issuing the last boxes at once queue behind each other and the second one sees
  * what the first left: it cannot take stock that is no longer there.
  */
-import type { TenantScope, Tx } from '@latchwork/shared-db';
+import { recordAudit, type TenantScope, type Tx } from '@latchwork/shared-db';
 import {
   applyAverageCost,
   formatPacks,
@@ -254,21 +254,17 @@ async function auditOverrides(
 ): Promise<void> {
   for (const row of rows.filter((r) => r.overrideReason)) {
     const batch = row.batchId ? ctx.batches.get(row.batchId) : undefined;
-    await tx
-      .insertInto('auditLog')
-      .values({
-        tenantId: scope.tenantId,
-        userId: actor.userId,
-        action: 'stock-expired-issued',
-        subject: `${ctx.products.get(row.productId)?.sku} batch ${batch?.code}`,
-        detail: {
-          movementId: row.id,
-          batchId: row.batchId,
-          expiresOn: batch?.expiresOn ?? null,
-          quantity: row.quantity,
-          reason: row.overrideReason,
-        },
-      })
-      .execute();
+    await recordAudit(tx, scope, {
+      userId: actor.userId,
+      action: 'stock-expired-issued',
+      subject: `${ctx.products.get(row.productId)?.sku} batch ${batch?.code}`,
+      detail: {
+        movementId: row.id,
+        batchId: row.batchId,
+        expiresOn: batch?.expiresOn ?? null,
+        quantity: row.quantity,
+        reason: row.overrideReason,
+      },
+    });
   }
 }

@@ -24,6 +24,16 @@ export const AUDIT_ACTIONS: readonly { readonly value: string; readonly label: s
   { value: 'member-role-changed', label: 'Changed a role' },
   { value: 'member-removed', label: 'Removed a member' },
   { value: 'settings-changed', label: 'Changed settings' },
+  { value: 'customer-created', label: 'Added a customer' },
+  { value: 'customer-updated', label: 'Changed a customer' },
+  { value: 'customer-deleted', label: 'Deleted a customer' },
+  { value: 'site-created', label: 'Added a site' },
+  { value: 'site-updated', label: 'Changed a site' },
+  { value: 'site-deleted', label: 'Deleted a site' },
+  { value: 'customers-imported', label: 'Imported customers or sites' },
+  { value: 'file-uploaded', label: 'Uploaded a file' },
+  { value: 'file-deleted', label: 'Deleted a file' },
+  { value: 'stock-expired-issued', label: 'Issued an expired batch' },
 ];
 
 /** The filters, as kept in the page's address (dates are local calendar days, `YYYY-MM-DD`). */
