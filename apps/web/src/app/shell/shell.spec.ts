@@ -92,7 +92,12 @@ describe('Shell', () => {
   it('signed in with a role without those permissions: none of the owner pages', async () => {
     await signInAs('installer', ['jobs:read', 'settings:read']);
     const fixture = await render();
-    expect(navLinks(fixture).map(([href]) => href)).toEqual(['/', '/status', '/api/v1/docs']);
+    expect(navLinks(fixture).map(([href]) => href)).toEqual([
+      '/',
+      '/jobs',
+      '/status',
+      '/api/v1/docs',
+    ]);
   });
 
   it('offers a firm menu only to a person of more than one firm', async () => {
