@@ -8,53 +8,42 @@ import type { DemoFirm, DemoStep } from './demo-context';
  * (checked with checkMove), with plausible dates, owners, values and a few notes.
  */
 
-/** The moves from Enquiry to each stage; a reason where the table wants one. */
+/** The usual road from Enquiry to Paid. */
+const ROAD: Stage[] = [
+  'survey_booked',
+  'surveyed',
+  'quoted',
+  'won',
+  'scheduled',
+  'installing',
+  'completed',
+  'invoiced',
+  'paid',
+];
+/** The road up to and including `to`, leaving out the stages a shortcut skips. */
+const along = (to: Stage, skip: Stage[] = []): [Stage, string?][] =>
+  ROAD.slice(0, ROAD.indexOf(to) + 1)
+    .filter((s) => !skip.includes(s))
+    .map((s) => [s]);
+
+/**
+ * The moves from Enquiry to each stage, a reason where the table wants one; some take the
+ * table's shortcuts (surveyed on the first visit, accepted and booked in one call).
+ */
 const PATHS: Record<Stage, [Stage, string?][]> = {
   enquiry: [],
-  survey_booked: [['survey_booked']],
-  surveyed: [['survey_booked'], ['surveyed']],
-  quoted: [['survey_booked'], ['surveyed'], ['quoted']],
-  won: [['survey_booked'], ['surveyed'], ['quoted'], ['won']],
-  lost: [['survey_booked'], ['surveyed'], ['quoted'], ['lost', 'Went with a cheaper quote']],
-  scheduled: [['surveyed'], ['quoted'], ['won'], ['scheduled']],
-  installing: [['survey_booked'], ['surveyed'], ['quoted'], ['scheduled'], ['installing']],
-  completed: [
-    ['survey_booked'],
-    ['surveyed'],
-    ['quoted'],
-    ['won'],
-    ['scheduled'],
-    ['installing'],
-    ['completed'],
-  ],
-  invoiced: [
-    ['surveyed'],
-    ['quoted'],
-    ['won'],
-    ['scheduled'],
-    ['installing'],
-    ['completed'],
-    ['invoiced'],
-  ],
-  paid: [
-    ['survey_booked'],
-    ['surveyed'],
-    ['quoted'],
-    ['won'],
-    ['scheduled'],
-    ['installing'],
-    ['completed'],
-    ['invoiced'],
-    ['paid'],
-  ],
-  on_hold: [['survey_booked'], ['on_hold', 'Customer waiting on a building warrant']],
-  cancelled: [
-    ['survey_booked'],
-    ['surveyed'],
-    ['quoted'],
-    ['won'],
-    ['cancelled', 'Unit sold before the install'],
-  ],
+  survey_booked: along('survey_booked'),
+  surveyed: along('surveyed'),
+  quoted: along('quoted'),
+  won: along('won'),
+  lost: [...along('quoted'), ['lost', 'Went with a cheaper quote']],
+  scheduled: along('scheduled', ['survey_booked']),
+  installing: along('installing', ['won']),
+  completed: along('completed'),
+  invoiced: along('invoiced', ['survey_booked']),
+  paid: along('paid'),
+  on_hold: [...along('survey_booked'), ['on_hold', 'Customer waiting on a building warrant']],
+  cancelled: [...along('won'), ['cancelled', 'Unit sold before the install']],
 };
 /** From young to old: a recent enquiry is rarely paid, an old one rarely still an enquiry. */
 const BY_AGE: Stage[] = [
