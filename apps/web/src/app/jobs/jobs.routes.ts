@@ -1,4 +1,5 @@
 import { Routes } from '@angular/router';
+import { SURVEY_ROUTES } from '../survey/survey.routes';
 
 /** The pages under /jobs, each lazy. The parent route already asks for `jobs:read`. */
 export const JOB_ROUTES: Routes = [
@@ -11,6 +12,8 @@ export const JOB_ROUTES: Routes = [
     title: 'Jobs table · Latchwork',
     loadComponent: () => import('./job-table-page').then((m) => m.JobTablePage),
   },
+  // /jobs/:jobId/areas/:areaId: the floor editor on one survey area.
+  ...SURVEY_ROUTES,
   {
     path: ':jobId',
     title: 'Job · Latchwork',
