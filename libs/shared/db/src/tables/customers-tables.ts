@@ -1,11 +1,5 @@
-import type { ColumnType, Generated } from 'kysely';
-import type { CreatedAt, Defaulted, MinorUnits } from './column-types';
-
-/**
- * Defaulted by the database on insert and set on every update. (`Defaulted<Timestamp>`
- * would nest two column types, which Kysely reads as "never writable".)
- */
-type UpdatedAt = ColumnType<Date, Date | string | undefined, Date | string>;
+import type { Generated } from 'kysely';
+import type { CreatedAt, Defaulted, DefaultedTimestamp, MinorUnits } from './column-types';
 
 export type CustomerKind = 'business' | 'homeowner';
 
@@ -28,7 +22,7 @@ export interface CustomersTables {
     notes: Defaulted<string>;
     createdBy: string | null;
     createdAt: CreatedAt;
-    updatedAt: UpdatedAt;
+    updatedAt: DefaultedTimestamp;
   };
   customerContact: {
     id: Generated<string>;
@@ -54,6 +48,6 @@ export interface CustomersTables {
     floorType: Defaulted<string>;
     openingHours: Defaulted<string>;
     createdAt: CreatedAt;
-    updatedAt: UpdatedAt;
+    updatedAt: DefaultedTimestamp;
   };
 }

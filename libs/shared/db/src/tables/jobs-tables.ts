@@ -1,8 +1,13 @@
 import type { ColumnType, Generated } from 'kysely';
-import type { CreatedAt, DateOnly, Defaulted, MinorUnits, Timestamp } from './column-types';
-
-/** A timestamp the database fills when an insert leaves it out (Defaulted<Timestamp> would nest). */
-type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
+import type {
+  CreatedAt,
+  DateOnly,
+  Defaulted,
+  DefaultedDate,
+  DefaultedTimestamp,
+  MinorUnits,
+  Timestamp,
+} from './column-types';
 
 /** Stage ids as stored; @latchwork/jobs-domain's STAGES and the check constraint agree. */
 export type JobStage =
@@ -44,7 +49,7 @@ export interface JobsTables {
     stage: Defaulted<JobStage>;
     stageChangedAt: DefaultedTimestamp;
     lostReason: string | null;
-    enquiryOn: ColumnType<string, string | undefined, string>;
+    enquiryOn: DefaultedDate;
     surveyAt: Timestamp | null;
     quoteDueOn: DateOnly | null;
     installStartOn: DateOnly | null;

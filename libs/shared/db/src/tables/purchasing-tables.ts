@@ -1,5 +1,12 @@
 import type { ColumnType, Generated } from 'kysely';
-import type { CreatedAt, DateOnly, Defaulted, MinorUnits, Timestamp } from './column-types';
+import type {
+  CreatedAt,
+  DateOnly,
+  Defaulted,
+  DefaultedTimestamp,
+  MinorUnits,
+  Timestamp,
+} from './column-types';
 
 /** A bigint (steps or minor units): read as text, written as number, bigint or text. */
 type Big = ColumnType<string, number | bigint | string, number | bigint | string>;
@@ -9,9 +16,6 @@ type DefaultedBig = ColumnType<
   number | bigint | string | undefined,
   number | bigint | string
 >;
-/** A timestamp with a database default that updates set. */
-type Touched = ColumnType<Date, Date | string | undefined, Date | string>;
-
 export type StockCountStatus = 'counting' | 'submitted' | 'posted' | 'cancelled';
 export type StockCountReason =
   | 'miscount'
@@ -37,7 +41,7 @@ export interface PurchasingTables {
     defaultOrderCostMinor: DefaultedBig;
     /** Where the reorder run's draft orders are delivered; null: the first warehouse. */
     deliveryLocationId: string | null;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
   stockCount: {
     id: Generated<string>;
@@ -94,7 +98,7 @@ export interface PurchasingTables {
     notes: Defaulted<string>;
     createdBy: string | null;
     createdAt: CreatedAt;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
     sentBy: string | null;
     sentAt: Timestamp | null;
     sentTo: string | null;

@@ -1,5 +1,11 @@
 import type { ColumnType, Generated } from 'kysely';
-import type { CreatedAt, DateOnly, Defaulted, MinorUnits } from './column-types';
+import type {
+  CreatedAt,
+  DateOnly,
+  Defaulted,
+  DefaultedTimestamp,
+  MinorUnits,
+} from './column-types';
 
 /** Product kinds as stored (migration 2026_12_02_0200). */
 export type ProductKind =
@@ -41,8 +47,6 @@ type DefaultedBigint = ColumnType<
   number | bigint | string | undefined,
   number | bigint | string
 >;
-/** A timestamp with a database default that updates set. */
-type Touched = ColumnType<Date, Date | string | undefined, Date | string>;
 /** jsonb: read as parsed JSON, written as a JSON string (pg would send an array as a PG array). */
 type Json<T> = ColumnType<T, string | undefined, string>;
 
@@ -77,7 +81,7 @@ export interface StockTables {
     notes: Defaulted<string>;
     active: Defaulted<boolean>;
     createdAt: CreatedAt;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
   product: {
     id: Generated<string>;
@@ -109,7 +113,7 @@ export interface StockTables {
     shelfLifeDays: number | null;
     active: Defaulted<boolean>;
     createdAt: CreatedAt;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
   stockLocation: {
     id: Generated<string>;
@@ -146,7 +150,7 @@ export interface StockTables {
     note: Defaulted<string>;
     createdBy: string | null;
     createdAt: CreatedAt;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
   /** Append-only (the app role may only select and insert). */
   stockMovement: {
@@ -174,7 +178,7 @@ export interface StockTables {
     overrideReason: string | null;
     note: Defaulted<string>;
     userId: string | null;
-    at: Touched;
+    at: DefaultedTimestamp;
   };
   stockBalance: {
     tenantId: string;
@@ -182,7 +186,7 @@ export interface StockTables {
     batchId: string | null;
     locationId: string;
     quantity: DefaultedBigint;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
   productCostState: {
     tenantId: string;
@@ -191,7 +195,7 @@ export interface StockTables {
     /** Exact stock value (never a rounded average). */
     valueMinor: DefaultedBigint;
     lastUnitCostMinor: MinorUnits | null;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
   stockSetting: {
     tenantId: string;
@@ -200,6 +204,6 @@ export interface StockTables {
     defaultServiceLevelBp: Defaulted<number>;
     /** Yearly holding cost as a share of unit cost, in basis points. */
     holdingCostRateBp: Defaulted<number>;
-    updatedAt: Touched;
+    updatedAt: DefaultedTimestamp;
   };
 }

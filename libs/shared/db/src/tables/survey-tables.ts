@@ -1,8 +1,5 @@
 import type { ColumnType, Generated } from 'kysely';
-import type { CreatedAt, Defaulted, Timestamp } from './column-types';
-
-/** A timestamp the database defaults on insert and the code sets on update. */
-type TouchedAt = ColumnType<Date, Date | string | undefined, Date | string>;
+import type { CreatedAt, Defaulted, DefaultedTimestamp, Timestamp } from './column-types';
 
 export type Substrate = 'concrete' | 'screed' | 'asphalt' | 'timber' | 'existing_floor';
 export type StoredReadingKind =
@@ -31,7 +28,7 @@ export interface SurveyTables {
     surveyorUserId: string | null;
     notes: Defaulted<string>;
     createdAt: CreatedAt;
-    updatedAt: TouchedAt;
+    updatedAt: DefaultedTimestamp;
   };
   surveyArea: {
     id: Generated<string>;
@@ -75,7 +72,7 @@ export interface SurveyTables {
     tenantId: string;
     slabLimits: Json<Record<string, unknown>>;
     updatedBy: string | null;
-    updatedAt: TouchedAt;
+    updatedAt: DefaultedTimestamp;
   };
   fileLink: {
     id: Generated<string>;
