@@ -116,6 +116,8 @@ try {
       'fakes',
     ]);
     vitest('e2e', ['--config', 'tests/vitest.config.ts', '--project', 'e2e']);
+    // Last: every firm's stock summaries still agree with its ledger after all of the above.
+    vitest('after the suite', ['--config', 'tests/vitest.config.ts', '--project', 'after-suite']);
   }
 } catch (err) {
   console.error(`[test] ${err.stack ?? err}`);
