@@ -150,8 +150,13 @@ async function demoJob(
     .executeTakeFirstOrThrow();
   const reference = formatReference(prefix, number);
   const at = (stage: Stage) => times[path.findIndex(([to]) => to === stage)];
-  const surveyed = at('surveyed') ?? at('survey_booked');
-  const installed = at('installing') ?? at('scheduled');
+  const later = (from: Date | undefined, days: number) =>
+    from && new Date(from.getTime() + days * DAY);
+  // The visit is when the job became surveyed; a job only booked is visited two days on.
+  const surveyed = at('surveyed') ?? later(at('survey_booked'), 2);
+  // Fitting starts when the job moved to fitting, else ten days after it was booked in.
+  const installed = at('installing') ?? later(at('scheduled'), 10);
+  const fitted = at('completed') ?? later(installed, 2);
   const job = await firm.tx
     .insertInto('job')
     .values({
@@ -166,10 +171,10 @@ async function demoJob(
       source: pick(['Website', 'Referral', 'Returning customer', 'Trade show', 'Phone']),
       ownerUserId: owner,
       enquiryOn: iso(enquired),
-      surveyAt: surveyed ? new Date(surveyed.getTime() + 2 * DAY).toISOString() : null,
-      quoteDueOn: surveyed ? iso(new Date(surveyed.getTime() + 7 * DAY)) : null,
-      installStartOn: installed ? iso(new Date(installed.getTime() + 10 * DAY)) : null,
-      installEndOn: installed ? iso(new Date(installed.getTime() + 12 * DAY)) : null,
+      surveyAt: surveyed ? surveyed.toISOString() : null,
+      quoteDueOn: surveyed ? iso(new Date(surveyed.getTime() + 5 * DAY)) : null,
+      installStartOn: installed ? iso(installed) : null,
+      installEndOn: fitted ? iso(fitted) : null,
       createdBy: owner,
       createdAt: enquired,
     })
