@@ -3,7 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatMenu, MatMenuItem, MatMenuTrigger } from '@angular/material/menu';
-import { MatTab, MatTabGroup } from '@angular/material/tabs';
+import { MatTab, MatTabContent, MatTabGroup } from '@angular/material/tabs';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { STAGE_LABELS, type Stage } from '@latchwork/jobs-domain';
@@ -35,6 +35,7 @@ import { JobsApi, type JobHeader, type StageMove } from './jobs-api';
     MatMenuItem,
     MatMenuTrigger,
     MatTab,
+    MatTabContent,
     MatTabGroup,
     RouterLink,
     SurveyWarnings,
