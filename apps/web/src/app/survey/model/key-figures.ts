@@ -1,6 +1,6 @@
 /**
- * The few figures of a takeoff an estimator scans in a list: area, tiles to order, the
- * thinnest cut, labour. The full bill is in the floor editor.
+ * The few figures of a takeoff an estimator scans in a list: area, tiles laid (the count to
+ * check against the plan) and to order, the thinnest cut, labour. The full bill is in the floor editor.
  */
 import type { TakeoffSummary } from '../survey-api';
 
@@ -15,6 +15,7 @@ export function keyFigures(s: TakeoffSummary): KeyFigure[] {
   const slivers = s.cuts.slivers ? ` (${s.cuts.slivers} slivers)` : '';
   return [
     { label: 'Area', value: `${number.format(s.netAreaM2)} m²` },
+    { label: 'Tiles laid', value: number.format(s.tiles.full + s.tiles.cut) },
     {
       label: 'Tiles to order',
       value: `${number.format(s.tiles.toOrder)} in ${s.tiles.packs} boxes`,
