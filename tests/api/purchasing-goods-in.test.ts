@@ -91,13 +91,32 @@ describe('goods in', () => {
         .expect(201)
     ).body;
     expect(first.status).toBe('part_received');
-    expect(first.lines[0]).toMatchObject({ receivedQuantity: 72, outstanding: 24 });
+    expect(first.lines[0]).toMatchObject({
+      receivedQuantity: 72,
+      receivedPacks: '3 boxes',
+      outstanding: 24,
+    });
     expect(first.lines[1]).toMatchObject({
       receivedQuantity: 10,
+      receivedPacks: '10 tiles',
       damagedQuantity: 1,
+      damagedPacks: '1 tile',
       outstanding: 2,
     });
     expect(first.receipts).toHaveLength(1);
+    // Each batch of the delivery in its line's packs, as the order page lists it.
+    expect(
+      first.receipts[0].lines.map((g: { batchCode: string; packs: string }) => [
+        g.batchCode,
+        g.packs,
+      ]),
+    ).toEqual(
+      expect.arrayContaining([
+        [b1, '1 box + 12 tiles'],
+        [b2, '1 box + 12 tiles'],
+        [k1, '10 tiles'],
+      ]),
+    );
     // The codes are random, so which sorts first varies: compare in the codes' own order.
     const [first1, first2] = [b1, b2].sort((x, y) => x.localeCompare(y));
     const byCode = (await balances(tile)).sort((x, y) =>

@@ -60,7 +60,9 @@ async function orderLines(tx: Tx, scope: TenantScope, purchaseOrderId: string) {
       taxRateBp: p.taxRateBp,
       taxMinor: mulDivRound(lineTotalMinor, p.taxRateBp, 10000),
       receivedQuantity: received,
+      receivedPacks: packsOf(p, received),
       damagedQuantity: Number(r.damagedQuantity),
+      damagedPacks: packsOf(p, Number(r.damagedQuantity)),
       outstanding: Math.max(quantity - received, 0),
       outstandingPacks: packsOf(p, Math.max(quantity - received, 0)),
       note: r.note,
@@ -132,6 +134,12 @@ export async function purchaseOrderView(tx: Tx, scope: TenantScope, id: string) 
         .executeTakeFirst()
     : undefined;
   const lines = await orderLines(tx, scope, id);
+  const byLine = new Map(lines.map((l) => [l.id, l]));
+  // Each delivered batch in the packs of its line's product, as the page shows it.
+  const packed = (lineId: string, quantity: number) => {
+    const l = byLine.get(lineId);
+    return l ? packsOf({ ...l.units, packSize: l.packSize, decimals: l.decimals }, quantity) : '';
+  };
   const netMinor = lines.reduce((s, l) => s + l.lineTotalMinor, 0);
   const taxMinor = lines.reduce((s, l) => s + l.taxMinor, 0);
   const { tenantId: _t, ...header } = o;
@@ -141,7 +149,14 @@ export async function purchaseOrderView(tx: Tx, scope: TenantScope, id: string) 
     deliveryLocation: location ?? null,
     lines,
     totals: { netMinor, taxMinor, grossMinor: netMinor + taxMinor },
-    receipts: await receipts(tx, scope, id),
+    receipts: (await receipts(tx, scope, id)).map((r) => ({
+      ...r,
+      lines: (r.lines ?? []).map((g) => ({
+        ...g,
+        packs: packed(g.purchaseOrderLineId, Number(g.quantity)),
+        damagedPacks: packed(g.purchaseOrderLineId, Number(g.damagedQuantity)),
+      })),
+    })),
   };
 }
 

@@ -36,7 +36,13 @@ export const stepsOf = (p: Pick<ProductFacts, 'packSize'>, q: { packs: number; u
   q.packs * p.packSize + q.units;
 
 /** "3 boxes + 5 tiles" for `quantity` steps of product `p`. */
-export function packsOf(p: ProductFacts, quantity: number): string {
+export function packsOf(
+  p: Pick<
+    ProductFacts,
+    'packSize' | 'decimals' | 'unitOne' | 'unitOther' | 'packOne' | 'packOther'
+  >,
+  quantity: number,
+): string {
   return formatPacks(
     quantity,
     p.packSize,
