@@ -77,6 +77,12 @@ describe('the ledger', () => {
       quantity: 77,
       unitCostMinor: 250,
     }).expect(201);
+    // What was booked, in packs for the page's "Booked: …" (boxes of 24).
+    expect(receipt.body.packs).toBe('3 boxes + 5 tiles');
+    const batches = await get(`/stock/batches?productId=${productId}`).expect(200);
+    expect(batches.body).toEqual([
+      expect.objectContaining({ onHand: 77, onHandPacks: '3 boxes + 5 tiles' }),
+    ]);
     await post('/stock/movements', {
       kind: 'transfer',
       productId,

@@ -6,7 +6,7 @@ import { inFirm } from '../stock-tx';
 import { invalidField } from '../stock-errors';
 import { createBatch } from '../places/batch.repository';
 import { checkLedger } from './check-ledger';
-import { listBalances, listMovements } from './ledger.repository';
+import { listBalances, listMovements, PACK_COLUMNS, packText } from './ledger.repository';
 import {
   balanceQuery,
   movementBody,
@@ -52,7 +52,14 @@ export function movementEndpoints(deps: StockDeps) {
         inFirm(deps.db, req, async (tx, scope) => {
           const m = await requestOf(tx, scope, body);
           const [row] = await postMovements(tx, scope, actor(req), [m], { at: () => '' });
-          return row;
+          // With its packs, so the page can say what was booked: "Booked: 2 boxes + 4 tiles".
+          const pack = await tx
+            .selectFrom('product as p')
+            .select(PACK_COLUMNS)
+            .where('p.tenantId', '=', scope.tenantId)
+            .where('p.id', '=', row.productId)
+            .executeTakeFirstOrThrow();
+          return { ...row, packs: packText(pack, row.quantity) };
         }),
     }),
     endpoint({

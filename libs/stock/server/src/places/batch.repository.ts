@@ -8,6 +8,7 @@ import { conflictField, invalidField } from '../stock-errors';
 import { isUniqueViolation } from '../catalogue/product-rules';
 import type { BatchBody } from './places.schemas';
 import { existsInFirm } from '../stock-tx';
+import { PACK_COLUMNS, packText } from '../ledger/ledger.repository';
 
 /** Creates a batch; 400 for an unknown product or supplier, 409 for a code already used. */
 export async function createBatch(
@@ -67,6 +68,7 @@ export function batchList(tx: Tx, scope: TenantScope) {
       'p.sku',
       'p.name as productName',
       'p.kind',
+      ...PACK_COLUMNS,
       (eb) =>
         eb
           .selectFrom('stockBalance as sb')
@@ -79,4 +81,13 @@ export function batchList(tx: Tx, scope: TenantScope) {
     .orderBy(sql`b.expires_on nulls last`)
     .orderBy('b.receivedOn')
     .orderBy('b.code');
+}
+
+type BatchRow = Awaited<ReturnType<ReturnType<typeof batchList>['execute']>>[number];
+
+/** A batch as the API returns it: on hand as a number and in packs ("3 boxes + 5 tiles"). */
+export function batchView(b: BatchRow) {
+  const { packSize: _s, unitOne: _a, unitOther: _b, packOne: _c, packOther: _d, ...rest } = b;
+  const onHand = Number(b.onHand);
+  return { ...rest, onHand, onHandPacks: packText(b, onHand) };
 }

@@ -5,7 +5,7 @@ import type { StockDeps } from '../stock-deps';
 import { existsInFirm, inFirm } from '../stock-tx';
 import { conflictField, invalidField } from '../stock-errors';
 import { isUniqueViolation } from '../catalogue/product-rules';
-import { batchList, createBatch } from './batch.repository';
+import { batchList, batchView, createBatch } from './batch.repository';
 import {
   batchBody,
   batchIdParams,
@@ -168,7 +168,7 @@ export function placesEndpoints(deps: StockDeps) {
               '<=',
               sql<string>`current_date + ${query.expiringWithinDays}::int`,
             );
-          return (await q.limit(1000).execute()).map((b) => ({ ...b, onHand: Number(b.onHand) }));
+          return (await q.limit(1000).execute()).map(batchView);
         }),
     }),
     endpoint({
@@ -182,7 +182,9 @@ export function placesEndpoints(deps: StockDeps) {
       handle: ({ body, req }) =>
         inFirm(deps.db, req, async (tx, scope) => {
           const id = await createBatch(tx, scope, body);
-          return batchList(tx, scope).where('b.id', '=', id).executeTakeFirstOrThrow();
+          return batchView(
+            await batchList(tx, scope).where('b.id', '=', id).executeTakeFirstOrThrow(),
+          );
         }),
     }),
     endpoint({
@@ -198,7 +200,7 @@ export function placesEndpoints(deps: StockDeps) {
             .where('b.id', '=', params.batchId)
             .executeTakeFirst();
           if (!b) throw new NotFoundError('That batch');
-          return { ...b, onHand: Number(b.onHand) };
+          return batchView(b);
         }),
     }),
   ];
