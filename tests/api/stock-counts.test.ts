@@ -78,6 +78,12 @@ describe('stock counts', () => {
       (l: { productId: string }) => l.productId === a.productId,
     );
     expect(lineA).toMatchObject({ expectedAtStart: 100, movementsDuring: -10, expected: 90 });
+    // The same in packs for the review page (boxes of 24): 100 = 4 boxes + 4 tiles.
+    expect(lineA).toMatchObject({
+      expectedAtStartPacks: '4 boxes + 4 tiles',
+      movementsDuringPacks: '-10 tiles',
+      expectedPacks: '3 boxes + 18 tiles',
+    });
     expect(lineA.variance).toBe(0);
     expect(submitted.body.lines.map((l: { variance: number }) => l.variance)).toEqual([0, 0]);
     await stores.put(`/stock/counts/${id}/entries`, { lines: [] }).expect(400);

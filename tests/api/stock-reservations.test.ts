@@ -128,6 +128,19 @@ describe('reservations', () => {
       used: 2,
       costMinor: 600,
     });
+    // The line's figures in its product's units (one to a pack here), for the page.
+    expect(materials.body.lines).toEqual([
+      expect.objectContaining({
+        kind: 'adhesive',
+        packs: {
+          estimated: null,
+          reserved: '0 units',
+          issued: '3 units',
+          returned: '1 unit',
+          used: '2 units',
+        },
+      }),
+    ]);
     expect(materials.body.estimateSource).toBe('none');
   });
 

@@ -52,6 +52,8 @@ export async function countView(tx: Tx, scope: TenantScope, countId: string) {
       expectedAtStart: l.expectedAtStart,
       movementsDuring: figures.expected - l.expectedAtStart,
       ...figures,
+      expectedAtStartPacks: packsOf(l.product, l.expectedAtStart),
+      movementsDuringPacks: packsOf(l.product, figures.expected - l.expectedAtStart),
       expectedPacks: packsOf(l.product, figures.expected),
       variancePacks: packsOf(l.product, figures.variance),
       reason: l.reason,

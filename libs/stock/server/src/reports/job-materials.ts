@@ -11,7 +11,32 @@ import {
   materialKey,
   type TakeoffMaterialsSummary,
 } from '@latchwork/stock-domain';
-import { packText } from '../ledger/ledger.repository';
+import { packText, type PackFacts } from '../ledger/ledger.repository';
+
+type Figures = Record<'estimated' | 'reserved' | 'issued' | 'returned' | 'used', number | null>;
+
+/**
+ * A material line's figures in packs ("2 boxes + 10 tiles") when every product on the line
+ * comes in the same pack; otherwise (or with nothing but an estimate) as plain numbers.
+ */
+function packedFigures(facts: PackFacts | null | undefined, f: Figures) {
+  const text = (n: number | null) => (n === null ? null : facts ? packText(facts, n) : String(n));
+  return {
+    estimated: text(f.estimated),
+    reserved: text(f.reserved),
+    issued: text(f.issued),
+    returned: text(f.returned),
+    used: text(f.used),
+  };
+}
+
+const samePack = (a: PackFacts, b: PackFacts) =>
+  Number(a.packSize) === Number(b.packSize) &&
+  a.decimals === b.decimals &&
+  a.unitOne === b.unitOne &&
+  a.unitOther === b.unitOther &&
+  a.packOne === b.packOne &&
+  a.packOther === b.packOther;
 
 async function latestTakeoffs(tx: Tx, scope: TenantScope, jobId: string) {
   return tx
@@ -120,6 +145,14 @@ export async function jobMaterials(tx: Tx, scope: TenantScope, jobId: string) {
       returned: 0,
       used: 0,
     });
+  // The pack every product of a line shares; null once two differ.
+  const packOf = new Map<string, PackFacts | null>();
+  rows.forEach((r, i) => {
+    const key = materialKey(products[i].kind, products[i].colour);
+    const known = packOf.get(key);
+    if (known === undefined) packOf.set(key, r);
+    else if (known && !samePack(known, r)) packOf.set(key, null);
+  });
   for (const p of products) {
     const key = materialKey(p.kind, p.colour);
     const g = groups.get(key) ?? {
@@ -141,7 +174,7 @@ export async function jobMaterials(tx: Tx, scope: TenantScope, jobId: string) {
     job,
     estimateSource: takeoffs.length > 0 ? ('takeoff' as const) : ('none' as const),
     takeoffAreas: takeoffs.length,
-    lines: [...groups.values()],
+    lines: [...groups].map(([key, g]) => ({ ...g, packs: packedFigures(packOf.get(key), g) })),
     products,
     totalCostMinor: products.reduce((s, p) => s + p.costMinor, 0),
   };
