@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { FormArray, FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
+import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
@@ -20,11 +20,12 @@ const goodsRow = () =>
     expiresOn: new FormControl('', { nonNullable: true }),
     unitCost: new FormControl('', { nonNullable: true }),
   });
+type GoodsRow = ReturnType<typeof goodsRow>;
 
 /**
  * One purchase order: its lines and totals, the PDF, sending and cancelling, and goods in —
- * per line what arrived (packs + loose units), its batch and expiry, what arrived damaged and
- * what the supplier actually charged.
+ * per line what arrived (packs + loose units) in one or more batches, each with its code and
+ * expiry, what arrived damaged and what the supplier actually charged.
  */
 @Component({
   selector: 'lw-po-page',
@@ -33,13 +34,14 @@ const goodsRow = () =>
     RouterLink,
     MatButton,
     MatError,
+    MatIconButton,
     MatFormField,
     MatIcon,
     MatInput,
     MatLabel,
   ],
   templateUrl: './po-page.html',
-  styleUrl: '../stock-page.scss',
+  styleUrls: ['../stock-page.scss', './po-page.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PoPage {
@@ -60,10 +62,11 @@ export class PoPage {
     message: new FormControl('', { nonNullable: true }),
   });
   protected readonly cancelReason = new FormControl('', { nonNullable: true });
+  /** Per order line, one row per batch that arrived (a delivery may mix production runs). */
   protected readonly goods = new FormGroup({
     receivedOn: new FormControl('', { nonNullable: true }),
     note: new FormControl('', { nonNullable: true }),
-    lines: new FormArray<ReturnType<typeof goodsRow>>([]),
+    lines: new FormArray<FormArray<GoodsRow>>([]),
   });
 
   constructor() {
@@ -75,8 +78,38 @@ export class PoPage {
 
   private show(o: Order): void {
     this.order.set(o);
+    this.goods.reset();
     this.goods.controls.lines.clear();
-    for (const _ of o.lines) this.goods.controls.lines.push(goodsRow());
+    for (const _ of o.lines) this.goods.controls.lines.push(new FormArray([goodsRow()]));
+  }
+
+  /** The batch rows of order line `i`. */
+  protected batchesOf(i: number): FormArray<GoodsRow> {
+    return this.goods.controls.lines.at(i);
+  }
+
+  protected addBatch(i: number): void {
+    this.batchesOf(i).push(goodsRow());
+  }
+
+  protected removeBatch(i: number, j: number): void {
+    this.batchesOf(i).removeAt(j);
+  }
+
+  /** One delivery in a line: "2026-12-02 at the yard by Colm: 3 boxes batch A; 2 boxes batch B". */
+  protected deliveryText(r: Order['receipts'][number]): string {
+    const goods = r.lines.map((g) =>
+      [
+        g.packs,
+        g.damagedQuantity ? `(+${g.damagedPacks} damaged)` : '',
+        g.batchCode ? `batch ${g.batchCode}` : '',
+        g.expiresOn ? `use by ${g.expiresOn}` : '',
+      ]
+        .filter(Boolean)
+        .join(' '),
+    );
+    const by = r.receivedByName ? ` by ${r.receivedByName}` : '';
+    return `${r.receivedOn} at ${r.locationName}${by}: ${goods.join('; ')}`;
   }
 
   protected money(minor: number): string {
@@ -105,29 +138,31 @@ export class PoPage {
   protected receive(): void {
     if (this.goods.invalid) return this.goods.markAllAsTouched();
     const v = this.goods.getRawValue();
-    const lines: GoodsInLine[] = (this.order()?.lines ?? []).flatMap((l, i) => {
-      const r = v.lines[i];
-      if (!r.packs && !r.units && !r.damaged) return [];
-      const cost = moneyInput(r.unitCost, this.currency());
-      return [
-        {
-          purchaseOrderLineId: l.id,
-          packs: Number(r.packs || 0),
-          units: Number(r.units || 0),
-          damaged: Number(r.damaged || 0),
-          ...(r.batchCode.trim() ? { batchCode: r.batchCode.trim() } : {}),
-          ...(r.expiresOn ? { expiresOn: r.expiresOn } : {}),
-          ...(cost === null || Number.isNaN(cost) ? {} : { unitCostMinor: cost }),
-        },
-      ];
-    });
+    // Where each line sent came from in the form (order line, batch row), to put refusals back.
+    const from: [number, number][] = [];
+    const lines: GoodsInLine[] = (this.order()?.lines ?? []).flatMap((l, i) =>
+      v.lines[i].flatMap((r, j) => {
+        if (!r.packs && !r.units && !r.damaged) return [];
+        const cost = moneyInput(r.unitCost, this.currency());
+        from.push([i, j]);
+        return [
+          {
+            purchaseOrderLineId: l.id,
+            packs: Number(r.packs || 0),
+            units: Number(r.units || 0),
+            damaged: Number(r.damaged || 0),
+            ...(r.batchCode.trim() ? { batchCode: r.batchCode.trim() } : {}),
+            ...(r.expiresOn ? { expiresOn: r.expiresOn } : {}),
+            ...(cost === null || Number.isNaN(cost) ? {} : { unitCostMinor: cost }),
+          },
+        ];
+      }),
+    );
     if (lines.length === 0) return this.problem.set('Enter what arrived on at least one line.');
-    // The API names lines by their place in what was sent; the form by the order's lines.
     const rename: Record<string, string> = {};
-    lines.forEach((g, i) => {
-      const at = (this.order()?.lines ?? []).findIndex((l) => l.id === g.purchaseOrderLineId);
+    from.forEach(([i, j], k) => {
       for (const f of ['packs', 'units', 'damaged', 'batchCode', 'expiresOn', 'unitCostMinor'])
-        rename[`lines.${i}.${f}`] = `lines.${at}.${f === 'unitCostMinor' ? 'unitCost' : f}`;
+        rename[`lines.${k}.${f}`] = `lines.${i}.${j}.${f === 'unitCostMinor' ? 'unitCost' : f}`;
     });
     this.problem.set(null);
     this.api

@@ -37,7 +37,9 @@ export interface OrderLine {
   readonly unitCostMinor: number;
   readonly lineTotalMinor: number;
   readonly receivedQuantity: number;
+  readonly receivedPacks: string;
   readonly damagedQuantity: number;
+  readonly damagedPacks: string;
   readonly outstanding: number;
   readonly outstandingPacks: string;
   readonly note: string;
@@ -63,8 +65,11 @@ export interface Order
     lines: {
       purchaseOrderLineId: string;
       batchCode: string | null;
+      expiresOn: string | null;
       quantity: number;
+      packs: string;
       damagedQuantity: number;
+      damagedPacks: string;
     }[];
   }[];
 }
