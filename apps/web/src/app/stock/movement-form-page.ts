@@ -5,9 +5,10 @@ import {
   computed,
   inject,
   signal,
+  viewChild,
 } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { FormControl, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
@@ -51,6 +52,8 @@ export class MovementFormPage {
   protected readonly isOwner = computed(() => this.session.activeTenant()?.role === 'owner');
   protected readonly currency = computed(() => this.session.activeTenant()?.currency ?? 'GBP');
   protected readonly form = movementForm();
+  /** The form element's directive: resetting through it also clears "submitted". */
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly kinds = Object.entries(MOVEMENT_LABELS);
   protected readonly kind = toSignal(this.form.controls.kind.valueChanges, {
     initialValue: this.form.controls.kind.value,
@@ -93,8 +96,15 @@ export class MovementFormPage {
         ),
       ),
     ),
-    { initialValue: [] },
+    { initialValue: [] as { id: string; reference: string; title: string }[] },
   );
+  /** The job the page was opened for (from a job's materials), named even when not in the list. */
+  private readonly givenJob = signal<{ id: string; reference: string; title: string } | null>(null);
+  protected readonly jobOptions = computed(() => {
+    const list = this.jobs();
+    const given = this.givenJob();
+    return given && !list.some((j) => j.id === given.id) ? [given, ...list] : list;
+  });
   protected readonly quantityText = toSignal(this.form.controls.quantity.valueChanges, {
     initialValue: '',
   });
@@ -111,13 +121,19 @@ export class MovementFormPage {
       .subscribe((id) => this.loadProduct(id));
     const given = inject(ActivatedRoute).snapshot.queryParamMap;
     if (given.get('productId')) this.form.patchValue({ productId: given.get('productId') ?? '' });
-    if (given.get('jobId'))
-      this.form.patchValue({ jobId: given.get('jobId') ?? '', kind: 'issue' });
+    const jobId = given.get('jobId');
+    if (jobId) {
+      this.form.patchValue({ jobId, kind: 'issue' });
+      this.api.job(jobId).subscribe((j) => this.givenJob.set({ ...j, id: jobId }));
+    }
   }
 
+  /** Loads the product and its batches; the same product again keeps what is shown meanwhile. */
   private loadProduct(id: string): void {
-    this.product.set(null);
-    this.batches.set([]);
+    if (this.product()?.id !== id) {
+      this.product.set(null);
+      this.batches.set([]);
+    }
     if (!id) return;
     this.api.product(id).subscribe((p) => this.product.set(p));
     this.api.batches({ productId: id }).subscribe((b) => this.batches.set(b));
@@ -136,8 +152,14 @@ export class MovementFormPage {
         this.saving.set(false);
         this.problem.set(null);
         this.booked.set(m);
-        this.form.patchValue({ quantity: '', note: '', overrideExpiredReason: '' });
-        this.loadProduct(p.id);
+        // Ready for the next line of the same kind; the emptied quantity is not an error yet.
+        // The product's batches reload with it, so their figures are current.
+        this.formDirective().resetForm({
+          ...this.form.getRawValue(),
+          quantity: '',
+          note: '',
+          overrideExpiredReason: '',
+        });
       },
       error: (err: unknown) => {
         this.saving.set(false);

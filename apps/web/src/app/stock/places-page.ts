@@ -1,6 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormControl,
+  FormGroup,
+  FormGroupDirective,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
@@ -13,6 +19,13 @@ import { Session } from '../session/session.store';
 import { Batch, Product, StockApi, StockLocation } from './stock-api';
 
 const text = (v = '') => new FormControl(v, { nonNullable: true, validators: Validators.required });
+
+/** The location kinds in the words the page shows. */
+export const LOCATION_KINDS: Readonly<Record<StockLocation['kind'], string>> = {
+  warehouse: 'Warehouse',
+  van: 'Van',
+  site: 'Job site',
+};
 
 /** Warehouses, vans and sites; batches with their dates (expiry before receipt is refused). */
 @Component({
@@ -37,6 +50,7 @@ export class PlacesPage {
   private readonly api = inject(StockApi);
   private readonly session = inject(Session);
   protected readonly canWrite = computed(() => this.session.can('stock:write'));
+  protected readonly kindText = LOCATION_KINDS;
   protected readonly problem = signal<string | null>(null);
   private readonly reload = new Subject<void>();
   protected readonly locations = toSignal(
@@ -69,23 +83,29 @@ export class PlacesPage {
     expiresOn: new FormControl('', { nonNullable: true }),
   });
 
-  protected addLocation(): void {
+  // Each form is reset through its directive: that also clears "submitted", so the emptied
+  // required fields do not show their errors as if the person had left them blank.
+  protected addLocation(form: FormGroupDirective): void {
     if (this.locationForm.invalid) return this.locationForm.markAllAsTouched();
-    this.api.addLocation(this.locationForm.getRawValue()).subscribe({
+    const v = this.locationForm.getRawValue();
+    this.api.addLocation(v).subscribe({
       next: () => {
-        this.locationForm.reset();
+        // The kind stays: a firm adding its vans adds them one after the other.
+        form.resetForm({ name: '', kind: v.kind });
+        this.problem.set(null);
         this.reload.next();
       },
       error: (err: unknown) => this.problem.set(showProblems(this.locationForm, err)),
     });
   }
 
-  protected addBatch(): void {
+  protected addBatch(form: FormGroupDirective): void {
     if (this.batchForm.invalid) return this.batchForm.markAllAsTouched();
     const v = this.batchForm.getRawValue();
     this.api.addBatch({ ...v, expiresOn: v.expiresOn || undefined }).subscribe({
       next: () => {
-        this.batchForm.reset();
+        form.resetForm({ productId: '', code: '', receivedOn: this.today, expiresOn: '' });
+        this.problem.set(null);
         this.reload.next();
       },
       error: (err: unknown) => this.problem.set(showProblems(this.batchForm, err)),

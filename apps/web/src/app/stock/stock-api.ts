@@ -72,6 +72,8 @@ export interface Batch {
   readonly sku: string;
   readonly productName: string;
   readonly onHand: number;
+  /** On hand in packs: "3 boxes + 5 tiles". */
+  readonly onHandPacks: string;
 }
 
 export interface Balance {
@@ -177,6 +179,10 @@ export interface MaterialLine {
   readonly issued: number;
   readonly returned: number;
   readonly used: number;
+  /** The same figures in packs ("2 boxes + 10 tiles") where the line's products share one. */
+  readonly packs: Readonly<
+    Record<'reserved' | 'issued' | 'returned' | 'used', string> & { estimated: string | null }
+  >;
 }
 
 export interface JobMaterials {
@@ -305,6 +311,10 @@ export class StockApi {
   }
   materials(jobId: string): Observable<JobMaterials> {
     return this.http.get<JobMaterials>(`${this.base}/jobs/${jobId}/materials`);
+  }
+  /** One job's reference and title (the jobs API's header), to name a job given by id. */
+  job(id: string) {
+    return this.http.get<{ reference: string; title: string }>(`/api/v1/jobs/${id}`);
   }
   /** Jobs to pick from (the jobs API's list, searched by reference or title). */
   jobs(q: string) {
