@@ -3,7 +3,7 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
@@ -11,8 +11,9 @@ import { ActivatedRoute, RouterLink } from '@angular/router';
 import { catchError, map, of, startWith, Subject, switchMap } from 'rxjs';
 import { errorText, showProblems } from '../api/api-problems';
 import { Session } from '../session/session.store';
-import { JobMaterials, PickingItem, Product, ReservationOffer, StockApi } from './stock-api';
-import { KIND_LABELS, moneyText, quantityInput } from './stock-format';
+import { productFinder } from './purchasing/stock-choices';
+import { JobMaterials, PickingItem, ReservationOffer, StockApi } from './stock-api';
+import { KIND_LABELS, moneyText, packsOf, quantityInput } from './stock-format';
 
 /**
  * A job's stock: materials estimated from its takeoffs against reserved, issued and returned
@@ -28,6 +29,7 @@ import { KIND_LABELS, moneyText, quantityInput } from './stock-format';
     MatCheckbox,
     MatError,
     MatFormField,
+    MatHint,
     MatIcon,
     MatInput,
     MatLabel,
@@ -75,24 +77,30 @@ export class JobStockPage {
     ),
     { initialValue: [] as PickingItem[] },
   );
-  protected readonly products = toSignal(
-    this.api.products({}).pipe(
-      map((r) => r.items),
-      catchError(() => of([] as Product[])),
-    ),
-    {
-      initialValue: [] as Product[],
-    },
-  );
+  protected readonly finder = productFinder();
   protected readonly form = new FormGroup({
     productId: new FormControl('', { nonNullable: true }),
     quantity: new FormControl('', { nonNullable: true }),
     acceptSplit: new FormControl(false, { nonNullable: true }),
   });
+  private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.value });
+  protected readonly product = computed(() => this.finder.byId(this.value().productId ?? ''));
+  /** What the typed quantity is in packs, under the field: "= 2 boxes + 10 tiles". */
+  protected readonly packsHint = computed(() => {
+    const p = this.product();
+    const q = p ? quantityInput(this.value().quantity ?? '', p.decimals) : Number.NaN;
+    return p && Number.isSafeInteger(q) && q > 0 ? `= ${packsOf(p, q)}` : '';
+  });
+
+  /** A pick of the offer in the product's packs. */
+  protected packs(quantity: number): string {
+    const p = this.product();
+    return p ? packsOf(p, quantity) : String(quantity);
+  }
 
   private body() {
     const v = this.form.getRawValue();
-    const p = this.products().find((x) => x.id === v.productId);
+    const p = this.finder.byId(v.productId);
     return {
       jobId: this.jobId,
       productId: v.productId,
@@ -113,6 +121,7 @@ export class JobStockPage {
       next: () => {
         this.offer.set(null);
         this.form.reset();
+        this.finder.query.setValue('');
         this.problem.set(null);
         this.reload.next();
       },

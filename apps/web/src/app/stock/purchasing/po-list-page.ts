@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormArray, FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
-import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
@@ -12,7 +12,7 @@ import { showProblems } from '../../api/api-problems';
 import { Session } from '../../session/session.store';
 import { StockApi, type Supplier } from '../stock-api';
 import { moneyInput } from '../stock-format';
-import { stockChoices } from './stock-choices';
+import { productFinder, stockChoices } from './stock-choices';
 import { ORDER_STATUS, PurchasingApi, type OrderSummary } from './purchasing-api';
 
 const WHOLE = Validators.pattern(/^\d{0,9}$/);
@@ -33,6 +33,7 @@ const lineGroup = () =>
     MatButton,
     MatError,
     MatFormField,
+    MatHint,
     MatIcon,
     MatIconButton,
     MatInput,
@@ -75,9 +76,8 @@ export class PoListPage {
     this.stock.suppliers().pipe(catchError(() => of([] as Supplier[]))),
     { initialValue: [] as Supplier[] },
   );
-  private readonly choices = stockChoices();
-  protected readonly locations = this.choices.locations;
-  protected readonly products = this.choices.products;
+  protected readonly locations = stockChoices().locations;
+  protected readonly finder = productFinder();
   protected readonly form = new FormGroup({
     supplierId: new FormControl('', { nonNullable: true, validators: Validators.required }),
     deliveryLocationId: new FormControl('', { nonNullable: true }),
@@ -100,7 +100,7 @@ export class PoListPage {
   }
 
   protected packName(productId: string): string {
-    return this.products().find((p) => p.id === productId)?.packOther ?? 'packs';
+    return this.finder.byId(productId)?.packOther ?? 'packs';
   }
 
   protected create(): void {
