@@ -67,6 +67,11 @@ export class CountReviewPage {
       );
   }
 
+  /** A saved reason in the words the select offered ("Lost or missing"), not its code. */
+  protected reasonText(id: string | null | undefined): string {
+    return this.reasons.find((r) => r.id === id)?.label ?? id ?? '';
+  }
+
   protected money(minor: number | null | undefined): string {
     return moneyText(minor ?? null, this.currency());
   }

@@ -41,6 +41,8 @@ export interface CountLine {
   readonly variance?: number;
   readonly unitCostMinor?: number;
   readonly varianceValueMinor?: number;
+  readonly expectedAtStartPacks?: string;
+  readonly movementsDuringPacks?: string;
   readonly expectedPacks?: string;
   readonly variancePacks?: string;
   readonly reason?: string | null;
