@@ -1,5 +1,5 @@
-import { sql } from 'kysely';
 import { checkMove, formatReference, STAGE_LABELS, type Stage } from '@latchwork/jobs-domain';
+import { nextNumber } from '@latchwork/shared-db';
 import type { DemoFirm, DemoStep } from './demo-context';
 
 /*
@@ -140,14 +140,7 @@ async function demoJob(
     .sort()
     .map((f) => new Date(enquired.getTime() + DAY / 2 + f * span));
   // The firm's counter, as the API takes it, so the API's next job follows on without a gap.
-  const { lastNumber: number } = await firm.tx
-    .insertInto('jobCounter')
-    .values({ tenantId: firm.tenantId, lastNumber: 1 })
-    .onConflict((oc) =>
-      oc.column('tenantId').doUpdateSet({ lastNumber: sql`job_counter.last_number + 1` }),
-    )
-    .returning('lastNumber')
-    .executeTakeFirstOrThrow();
+  const number = await nextNumber(firm.tx, firm, 'job_counter');
   const reference = formatReference(prefix, number);
   const at = (stage: Stage) => times[path.findIndex(([to]) => to === stage)];
   const later = (from: Date | undefined, days: number) =>

@@ -20,3 +20,4 @@ export type {
   StockCountReason,
   StockCountStatus,
 } from './tables/purchasing-tables';
+export * from './counters';

@@ -1,5 +1,4 @@
-import { sql } from 'kysely';
-import type { TenantScope, Tx } from '@latchwork/shared-db';
+import { nextNumber, type TenantScope, type Tx } from '@latchwork/shared-db';
 import { NotFoundError, ValidationError, type FieldProblem } from '@latchwork/shared-server-kit';
 import { formatReference, heldFromOf, nextStages, type Stage } from '@latchwork/jobs-domain';
 import { assertJobVisible, recordJobEvent, type JobViewer } from './job-events';
@@ -54,23 +53,6 @@ async function checkLinks(
     throw new ValidationError(`${problems[0]?.path}: ${problems[0]?.message}`, problems);
 }
 
-/**
- * The next job number of the firm. The upsert takes the counter row's lock until the
- * creating transaction ends, so concurrent creations queue and a rolled-back one gives its
- * number back: references stay gapless.
- */
-async function nextJobNumber(tx: Tx, scope: TenantScope): Promise<number> {
-  const row = await tx
-    .insertInto('jobCounter')
-    .values({ tenantId: scope.tenantId, lastNumber: 1 })
-    .onConflict((oc) =>
-      oc.column('tenantId').doUpdateSet({ lastNumber: sql`job_counter.last_number + 1` }),
-    )
-    .returning('lastNumber')
-    .executeTakeFirstOrThrow();
-  return row.lastNumber;
-}
-
 /** Creates a job at Enquiry with its first history line and timeline event. */
 export async function createJob(
   tx: Tx,
@@ -85,7 +67,7 @@ export async function createJob(
     .where('id', '=', scope.tenantId)
     .executeTakeFirstOrThrow();
   // Taken last, so the counter's lock is held for as short a time as possible.
-  const number = await nextJobNumber(tx, scope);
+  const number = await nextNumber(tx, scope, 'job_counter');
   const reference = formatReference(tenant.numberPrefixes['job'] ?? '', number);
   const job = await tx
     .insertInto('job')

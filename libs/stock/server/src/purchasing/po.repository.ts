@@ -3,8 +3,7 @@
  * firm's purchase-order prefix (the counter row stays locked until the creating transaction
  * ends, so a rolled-back order does not use a number up), edited only while draft.
  */
-import { sql } from 'kysely';
-import type { TenantScope, Tx } from '@latchwork/shared-db';
+import { nextNumber, type TenantScope, type Tx } from '@latchwork/shared-db';
 import { invalidField } from '../stock-errors';
 import { loadProducts, requireFirmRow, stepsOf } from './product-facts';
 import type { PurchaseOrderBody } from './po.schemas';
@@ -28,18 +27,19 @@ export interface OrderInput {
 }
 
 /** The next number of the firm's orders and its reference, e.g. 7 and "PO-7". */
-async function nextNumber(tx: Tx, scope: TenantScope): Promise<{ n: number; reference: string }> {
-  const { rows } = await sql<{ n: number }>`
-    insert into purchase_order_counter (tenant_id, last_number) values (${scope.tenantId}, 1)
-    on conflict (tenant_id) do update set last_number = purchase_order_counter.last_number + 1
-    returning last_number as n`.execute(tx);
+async function nextOrderNumber(
+  tx: Tx,
+  scope: TenantScope,
+): Promise<{ n: number; reference: string }> {
   const tenant = await tx
     .selectFrom('tenant')
     .select('numberPrefixes')
     .where('id', '=', scope.tenantId)
     .executeTakeFirstOrThrow();
   const prefix = tenant.numberPrefixes['purchaseOrder'] ?? 'PO-';
-  return { n: rows[0].n, reference: `${prefix}${rows[0].n}` };
+  // Taken last: the counter row stays locked until the transaction ends.
+  const n = await nextNumber(tx, scope, 'purchase_order_counter');
+  return { n, reference: `${prefix}${n}` };
 }
 
 /** 400 naming the field when the supplier or location is not the firm's. */
@@ -112,7 +112,7 @@ export async function createPurchaseOrder(
   o: OrderInput,
 ): Promise<string> {
   await checkPlaces(tx, scope, o);
-  const { n, reference } = await nextNumber(tx, scope);
+  const { n, reference } = await nextOrderNumber(tx, scope);
   const row = await tx
     .insertInto('purchaseOrder')
     .values({
